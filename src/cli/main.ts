@@ -1,0 +1,353 @@
+/** The `resin-derate` command line: the engine's answers as text tables or JSON. */
+import { readFileSync } from 'node:fs';
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import {
+  apparentTgK,
+  bandEstimate,
+  deratingTable,
+  equivalentTimeS,
+  FAMILIES,
+  InputError,
+  kelvinToC,
+  maxTemperatureK,
+  maxTimeS,
+  modulusAfterHistory,
+  ParameterError,
+  paramsFromRecord,
+  paramsToRecord,
+  parseStressMPa,
+  parseTemperatureK,
+  parseTimeS,
+  resolveMaterial,
+  shiftLog10,
+  simulateHdt,
+  SolverError,
+  UnknownFamilyError,
+  type InverseAnswer,
+  type Material,
+  type MaterialInput,
+} from '../index.js';
+import { csvTable, markdownTable, sig } from './format.js';
+import { runDemo } from './demo.js';
+
+export interface Out {
+  write(text: string): unknown;
+}
+
+type Options = NonNullable<ParseArgsConfig['options']>;
+type Values = Record<string, string | boolean | undefined>;
+
+interface Command {
+  readonly summary: string;
+  readonly usage: string;
+  readonly options: Options;
+  run(v: Values, out: Out): void;
+}
+
+const CAUTION =
+  'Screening estimates only: confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code and defer to licensed engineering review for parts whose failure can hurt someone.';
+
+const material: Options = {
+  family: { type: 'string' },
+  params: { type: 'string' },
+};
+const json: Options = { json: { type: 'boolean' } };
+
+function str(v: Values, key: string): string {
+  const x = v[key];
+  if (typeof x !== 'string' || x.trim() === '') throw new InputError(`--${key}`, 'is required');
+  return x;
+}
+
+function materialFrom(v: Values): Material {
+  return resolveMaterial(materialInput(v));
+}
+
+function materialInput(v: Values): MaterialInput {
+  const family = v['family'];
+  const file = v['params'];
+  if (typeof family === 'string' && typeof file === 'string') throw new InputError('--family', 'give --family or --params, not both');
+  if (typeof file === 'string') {
+    let record: unknown;
+    try {
+      record = JSON.parse(readFileSync(file, 'utf8'));
+    } catch (e) {
+      throw new InputError('--params', `cannot read JSON from '${file}': ${(e as Error).message}`);
+    }
+    if (typeof record !== 'object' || record === null || Array.isArray(record)) {
+      throw new InputError('--params', `'${file}' must hold one JSON object of parameters`);
+    }
+    return paramsFromRecord(record as Record<string, unknown>);
+  }
+  if (typeof family === 'string') return family;
+  throw new InputError('--family', 'is required (a family id such as PC, or --params FILE.json)');
+}
+
+function listOf(text: string, argument: string): string[] {
+  const items = text
+    .split(',')
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
+  if (items.length === 0) throw new InputError(argument, 'needs a comma-separated list');
+  return items;
+}
+
+function emit(out: Out, v: Values, data: object, text: string): void {
+  out.write(v['json'] ? JSON.stringify(data, null, 2) + '\n' : text);
+}
+
+function inverseText(a: InverseAnswer, above: string, below: string): string {
+  return a.status === 'above-throughout' ? above : below;
+}
+
+const COMMANDS: Record<string, Command> = {
+  families: {
+    summary: 'list the bundled polymer families',
+    usage: 'resin-derate families [--json]',
+    options: { ...json },
+    run(v, out) {
+      const data = FAMILIES.map((f) => ({
+        id: f.params.id,
+        name: f.params.name,
+        kind: f.params.kind,
+        Tg_C: f.params.Tg_C,
+        Tm_C: f.params.Tm_C,
+        E23_MPa: f.params.E23_MPa,
+        sources: f.sources,
+      }));
+      const rows = FAMILIES.map((f) => [
+        f.params.id,
+        f.params.kind,
+        String(f.params.Tg_C),
+        f.params.Tm_C === null ? '' : String(f.params.Tm_C),
+        f.params.E23_MPa === null ? '' : String(f.params.E23_MPa),
+        f.params.name,
+      ]);
+      emit(out, v, data, markdownTable(['id', 'kind', 'Tg degC', 'Tm degC', 'E23 MPa', 'name'], rows));
+    },
+  },
+  params: {
+    summary: 'print the full parameter record of a family (edit it and pass it back with --params)',
+    usage: 'resin-derate params --family ID [--json]',
+    options: { ...material, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const rec = paramsToRecord(m.params);
+      const text = Object.entries(rec)
+        .map(([k, x]) => `${k.padEnd(18)} ${x === null ? '' : String(x)}`)
+        .join('\n');
+      emit(out, v, rec, text + '\n');
+    },
+  },
+  modulus: {
+    summary: 'relaxation modulus at a temperature and time, with its region and band',
+    usage: "resin-derate modulus --family ID --temp '80 degC' --time '1000 h' [--json]",
+    options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const b = bandEstimate(m, tS, TK);
+      const data = {
+        modulus_MPa: b.centralMPa,
+        region: b.region,
+        low_MPa: b.lowMPa,
+        high_MPa: b.highMPa,
+        temperature_C: kelvinToC(TK),
+        time_s: tS,
+      };
+      emit(out, v, data, `${m.params.id}: ${sig(b.centralMPa)} MPa (${b.region}; band ${sig(b.lowMPa)} to ${sig(b.highMPa)} MPa)\n`);
+    },
+  },
+  shift: {
+    summary: 'log10 of the shift factor a_T relative to the family Tg',
+    usage: "resin-derate shift --family ID --temp '120 degC' [--json]",
+    options: { ...material, temp: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const log10aT = shiftLog10(m.shift, TK);
+      const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
+      emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
+    },
+  },
+  maxtemp: {
+    summary: 'highest temperature at which the modulus stays at or above a required value for a time',
+    usage: "resin-derate maxtemp --family ID --modulus '800 MPa' --time '1000 h' [--json]",
+    options: { ...material, modulus: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const req = parseStressMPa(str(v, 'modulus'), '--modulus');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const a = maxTemperatureK(m, req, tS);
+      const T = a.value === null ? null : kelvinToC(a.value);
+      const note = inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
+      emit(
+        out,
+        v,
+        { temperature_C: T, status: a.status, ...(T === null ? { not_reached: note } : {}) },
+        T === null ? `${note}\n` : `${sig(T, 4)} degC\n`,
+      );
+    },
+  },
+  maxtime: {
+    summary: 'longest time for which the modulus stays at or above a required value at a temperature',
+    usage: "resin-derate maxtime --family ID --modulus '800 MPa' --temp '80 degC' [--json]",
+    options: { ...material, modulus: { type: 'string' }, temp: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const req = parseStressMPa(str(v, 'modulus'), '--modulus');
+      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const a = maxTimeS(m, req, TK);
+      const note = inverseText(a, 'beyond 100 years', 'never reached: below the required modulus already at 1 ms');
+      emit(
+        out,
+        v,
+        {
+          time_s: a.value,
+          time_h: a.value === null ? null : a.value / 3600,
+          status: a.status,
+          ...(a.value === null ? { not_reached: note } : {}),
+        },
+        a.value === null ? `${note}\n` : `${sig(a.value / 3600, 4)} h\n`,
+      );
+    },
+  },
+  tgat: {
+    summary: 'apparent Tg at a time scale (the temperature where the glass-transition time equals it)',
+    usage: "resin-derate tgat --family ID --time '1000 h' [--json]",
+    options: { ...material, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const TK = apparentTgK(m, tS);
+      const T = TK === null ? null : kelvinToC(TK);
+      emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${sig(T, 4)} degC\n`);
+    },
+  },
+  eqtime: {
+    summary: 'equivalent time of a repeated duty cycle at a reference temperature, and the modulus after it',
+    usage: "resin-derate eqtime --family ID --cycle '70 degC:8 h,30 degC:16 h' --cycles 3650 [--ref '70 degC'] [--json]",
+    options: { ...material, cycle: { type: 'string' }, cycles: { type: 'string' }, ref: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const segments = listOf(str(v, 'cycle'), '--cycle').map((item, i) => {
+        const [T, t, extra] = item.split(':');
+        if (T === undefined || t === undefined || extra !== undefined) {
+          throw new InputError('--cycle', `segment ${i + 1} '${item}' must be TEMPERATURE:DURATION, such as '70 degC:8 h'`);
+        }
+        return { TK: parseTemperatureK(T, '--cycle'), dtS: parseTimeS(t, '--cycle') };
+      });
+      const cycles = v['cycles'] === undefined ? 1 : Number(v['cycles']);
+      if (!Number.isFinite(cycles) || cycles <= 0)
+        throw new InputError('--cycles', `must be a positive number, got '${String(v['cycles'])}'`);
+      const refK = v['ref'] === undefined ? Math.max(...segments.map((s) => s.TK)) : parseTemperatureK(str(v, 'ref'), '--ref');
+      const teq = equivalentTimeS(m, segments, refK, cycles);
+      const after = modulusAfterHistory(m, segments, cycles, refK);
+      emit(
+        out,
+        v,
+        {
+          equivalent_time_s: teq,
+          equivalent_time_h: teq / 3600,
+          ref_temperature_C: kelvinToC(refK),
+          modulus_MPa: after.modulusMPa,
+          region: after.region,
+        },
+        `${sig(teq / 3600, 4)} h at ${sig(kelvinToC(refK), 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+      );
+    },
+  },
+  hdt: {
+    summary: 'simulated ISO 75 heat deflection temperature at a flexural stress (A 1.80, B 0.45 MPa)',
+    usage: 'resin-derate hdt --family ID --stress 1.8 [--json]',
+    options: { ...material, stress: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const stress = parseStressMPa(str(v, 'stress'), '--stress');
+      const r = simulateHdt(m, stress);
+      emit(
+        out,
+        v,
+        { temperature_C: r.temperatureC },
+        r.temperatureC === null ? 'not reached below 500 degC\n' : `${sig(r.temperatureC, 4)} degC\n`,
+      );
+    },
+  },
+  table: {
+    summary: 'derating table: modulus and ratio to 23 degC / 1 h for families at temperatures after a time',
+    usage: "resin-derate table --families PC,PA66-cond --temps 23,60,80 --time '1000 h' [--format md|csv|json]",
+    options: { families: { type: 'string' }, temps: { type: 'string' }, time: { type: 'string' }, format: { type: 'string' } },
+    run(v, out) {
+      const ids = listOf(str(v, 'families'), '--families');
+      const temps = listOf(str(v, 'temps'), '--temps').map((t) => kelvinToC(parseTemperatureK(t, '--temps')));
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const format = (v['format'] as string | undefined) ?? 'md';
+      if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
+      const rows = deratingTable(ids, temps, tS);
+      if (format === 'json') {
+        const data = rows.map((r) => ({
+          id: r.id,
+          reference_MPa: r.referenceMPa,
+          cells: r.cells.map((c) => ({ temperature_C: c.temperatureC, modulus_MPa: c.modulusMPa, ratio: c.ratio, region: c.region })),
+        }));
+        out.write(JSON.stringify({ time_s: tS, reference: { temperature_C: 23, time_s: 3600 }, rows: data }, null, 2) + '\n');
+        return;
+      }
+      const header = ['family', ...temps.map((t) => `${sig(t, 4)} degC MPa`), ...temps.map((t) => `ratio ${sig(t, 4)}`)];
+      const body = rows.map((r) => [r.id, ...r.cells.map((c) => sig(c.modulusMPa)), ...r.cells.map((c) => c.ratio.toFixed(2))]);
+      out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
+    },
+  },
+  demo: {
+    summary: 'run the bundled demo scenario (invented) and print its derating review',
+    usage: 'resin-derate demo',
+    options: {},
+    run(_v, out) {
+      runDemo(out);
+    },
+  },
+};
+
+function helpText(): string {
+  const lines = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
+  return `resin-derate: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\n${CAUTION}\n`;
+}
+
+/** Runs the CLI with the given arguments; returns the exit code. */
+export async function main(argv: readonly string[], out: Out, err: Out): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    out.write(helpText());
+    return name === undefined ? 1 : 0;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    err.write(`resin-derate: unknown command '${name}'; commands: ${Object.keys(COMMANDS).join(', ')}\n`);
+    return 2;
+  }
+  try {
+    const { values } = parseArgs({
+      args: [...rest],
+      options: { ...command.options, help: { type: 'boolean', short: 'h' } },
+      strict: true,
+      allowPositionals: false,
+    });
+    if (values['help']) {
+      out.write(`${command.summary}\n\nUsage: ${command.usage}\n`);
+      return 0;
+    }
+    command.run(values as Values, out);
+    return 0;
+  } catch (e) {
+    err.write(`resin-derate ${name}: ${describeError(e)}\n`);
+    return 2;
+  }
+}
+
+function describeError(e: unknown): string {
+  if (e instanceof InputError || e instanceof ParameterError || e instanceof UnknownFamilyError || e instanceof SolverError)
+    return e.message;
+  if (e instanceof Error && 'code' in e && typeof e.code === 'string' && e.code.startsWith('ERR_PARSE_ARGS')) return e.message;
+  throw e;
+}

@@ -1,0 +1,199 @@
+/**
+ * The four-region relaxation modulus E_r(t, T) in MPa.
+ *
+ * Main clock: reduced time xi = t / a_T(T) at Tg (hybrid WLF/Arrhenius). Slow-creep clock: theta =
+ * t / tau_c(T), tau_c = 1 s at 23 degC, Arrhenius with creepEa. With x = xi / tauTg:
+ *   glass transition  G = exp(-x^beta)                         (KWW; Roland and Ngai 1991)
+ *   terminal flow     F = exp(-(x / 10^flowDecades)^flowBeta)
+ *   slow creep        g = (1 + theta)^-creepN                  (bounded power law, Findley style)
+ *   amorphous         E = g [(Eg - Ep) G + Ep F]
+ *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, Ec = g Eg,
+ *                     Ea = amorphous E, lambda phi = X(T), X(T) = X exp(-ln20 [(T/Tm)^m - (T23/Tm)^m])
+ *                     above 23 degC (melting; X at and below 23 degC)
+ *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113)
+ *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
+ * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
+ * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
+ */
+import { ParameterError } from './errors.js';
+import type { Kind, MaterialParams } from './params.js';
+import { validateParams } from './params.js';
+import { brentRoot } from './roots.js';
+import { arrheniusLog10, GAS_CONSTANT, shiftLog10, type ShiftConstants } from './shift.js';
+import { KELVIN_OFFSET } from './units.js';
+
+/** The reference temperature of the datasheet modulus and of the slow-creep clock, kelvin (ISO 291 standard atmosphere 23 degC). */
+export const T23_K = 23 + KELVIN_OFFSET;
+/**
+ * Loading time that a datasheet short-term modulus stands for, seconds. Common practice: an ISO 527
+ * tensile modulus (0.05 to 0.25 % strain at 1 mm/min) is measured over roughly ten seconds (from memory).
+ */
+export const DATASHEET_TIME_S = 10;
+/** Crystalline fraction left at Tm, relative to 23 degC, in the melting law (set here: 5 % survive to the DSC peak). */
+export const MELT_REMAINING_AT_TM = 0.05;
+const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
+
+export type Region = 'glassy' | 'transition' | 'rubbery' | 'flow' | 'crystalline' | 'melting';
+export const REGIONS: readonly Region[] = ['glassy', 'transition', 'rubbery', 'flow', 'crystalline', 'melting'];
+
+/** A validated material with its constants precomputed for fast evaluation. */
+export interface Material {
+  readonly params: MaterialParams;
+  readonly kind: Kind;
+  readonly shift: ShiftConstants;
+  readonly EgMPa: number;
+  readonly tauTg: number;
+  readonly beta: number;
+  readonly tauFlow: number;
+  readonly flowBeta: number;
+  readonly plateau: number;
+  readonly creepN: number;
+  readonly creepLog10PerInvK: number;
+  readonly crystallinity: number;
+  readonly phi: number;
+  readonly TmK: number;
+  readonly meltSharpness: number;
+  /** (T23 / Tm)^m, so that the melting law is normalized to the crystallinity at 23 degC. */
+  readonly melt23: number;
+  /** 3 rho R / Mc in MPa per kelvin (crosslinked), else 0. */
+  readonly networkMPaPerK: number;
+}
+
+/** Contributions behind one evaluation, for the region and for tests. */
+export interface Evaluation {
+  readonly modulusMPa: number;
+  readonly region: Region;
+  readonly glassFraction: number;
+  readonly flowFraction: number;
+  readonly creepFactor: number;
+  readonly crystalRemaining: number;
+}
+
+const compiled = new WeakMap<MaterialParams, Material>();
+
+/** Validates a parameter record and precomputes its constants (cached per record object). */
+export function compileMaterial(params: MaterialParams): Material {
+  const cached = compiled.get(params);
+  if (cached) return cached;
+  validateParams(params);
+  const base = build(params, params.Eg_MPa ?? 1000);
+  const material = params.E23_MPa === null ? checkGlassy(base) : anchorGlassyModulus(base, params.E23_MPa);
+  compiled.set(params, material);
+  return material;
+}
+
+function build(p: MaterialParams, EgMPa: number): Material {
+  const TgK = p.Tg_C + KELVIN_OFFSET;
+  return {
+    params: p,
+    kind: p.kind,
+    shift: { law: p.shiftLaw, TrefK: TgK, C1: p.C1, C2K: p.C2_K, EakJ: p.Ea_kJmol },
+    EgMPa,
+    tauTg: p.tauTg_s,
+    beta: p.beta,
+    tauFlow: p.tauTg_s * 10 ** p.flowDecades,
+    flowBeta: p.flowBeta,
+    plateau: p.kind === 'crosslinked' ? 0 : p.plateau_MPa,
+    creepN: p.creepN,
+    creepLog10PerInvK: (p.creepEa_kJmol * 1000) / (GAS_CONSTANT * Math.LN10),
+    crystallinity: p.kind === 'semicrystalline' ? p.crystallinity : 0,
+    phi: p.kind === 'semicrystalline' ? p.crystalContinuity : 1,
+    TmK: p.Tm_C === null ? Infinity : p.Tm_C + KELVIN_OFFSET,
+    meltSharpness: p.meltSharpness,
+    melt23: p.Tm_C === null ? 0 : (T23_K / (p.Tm_C + KELVIN_OFFSET)) ** p.meltSharpness,
+    networkMPaPerK: p.kind === 'crosslinked' ? (3 * p.density_kgm3 * GAS_CONSTANT) / p.Mc_kgmol / 1e6 : 0,
+  };
+}
+
+function checkGlassy(m: Material): Material {
+  const rubber = Math.max(m.plateau, m.networkMPaPerK * T23_K);
+  if (m.EgMPa < 10 * rubber) {
+    throw new ParameterError(
+      'Eg_MPa',
+      `${m.EgMPa} MPa must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa)`,
+      m.EgMPa,
+    );
+  }
+  return m;
+}
+
+/** Solves the glassy modulus so that E(23 degC, datasheet time) equals E23 (MPa). */
+function anchorGlassyModulus(base: Material, E23: number): Material {
+  const at = (logEg: number): number => evaluateClocks(build(base.params, 10 ** logEg), DATASHEET_TIME_S, T23_K).modulusMPa;
+  const lo = Math.log10(50);
+  const hi = Math.log10(20000);
+  const eLo = at(lo);
+  const eHi = at(hi);
+  if (E23 < eLo || E23 > eHi) {
+    throw new ParameterError(
+      'E23_MPa',
+      `${E23} MPa cannot be reached with a glassy modulus from 50 to 20000 MPa (that range gives ${eLo.toPrecision(3)} to ${eHi.toPrecision(3)} MPa at 23 degC); check Tg_C and the kind, or give Eg_MPa instead`,
+      E23,
+    );
+  }
+  const r = brentRoot((x) => at(x) / E23 - 1, lo, hi, 1e-12);
+  return checkGlassy(build(base.params, 10 ** r.root));
+}
+
+/** Relaxation modulus (MPa) at time t (s) and temperature T (K). */
+export function modulusMPa(m: Material, tS: number, TK: number): number {
+  return evaluateClocks(m, tS, TK).modulusMPa;
+}
+
+/** Full evaluation (modulus in MPa, region, contributions) at time t (s) and temperature T (K). */
+export function evaluateClocks(m: Material, tS: number, TK: number): Evaluation {
+  const xi = tS / 10 ** shiftLog10(m.shift, TK);
+  const theta = tS / 10 ** (m.creepLog10PerInvK * (1 / TK - 1 / T23_K));
+  return evaluateReduced(m, xi, theta, TK);
+}
+
+/** Slow-creep clock rate: 1 / tau_c(T) in 1/s (tau_c = 1 s at 23 degC). */
+export function creepRate(m: Material, TK: number): number {
+  return 1 / 10 ** arrheniusLog10(TK, T23_K, m.params.creepEa_kJmol);
+}
+
+/**
+ * Modulus (MPa) from accumulated clocks: xi = reduced time at Tg (s), theta = slow-creep clock (1),
+ * with the time-independent parts (melting, network) taken at T (K).
+ */
+export function evaluateReduced(m: Material, xi: number, theta: number, TK: number): Evaluation {
+  const x = xi / m.tauTg;
+  const G = Math.exp(-(x ** m.beta));
+  const g = m.creepN === 0 ? 1 : (1 + theta) ** -m.creepN;
+  if (m.kind === 'crosslinked') {
+    const Er = m.networkMPaPerK * TK;
+    const glassy = g * Math.max(0, m.EgMPa - Er) * G;
+    const E = glassy + Er;
+    const region: Region = G >= 0.9 ? 'glassy' : glassy > Er ? 'transition' : 'rubbery';
+    return { modulusMPa: E, region, glassFraction: G, flowFraction: 1, creepFactor: g, crystalRemaining: 0 };
+  }
+  const F = Math.exp(-(((x * m.tauTg) / m.tauFlow) ** m.flowBeta));
+  const glassy = g * (m.EgMPa - m.plateau) * G;
+  const rubbery = g * m.plateau * F;
+  const Ea = glassy + rubbery;
+  if (m.kind === 'amorphous') {
+    const region: Region = G >= 0.9 ? 'glassy' : glassy > rubbery ? 'transition' : F >= 0.5 ? 'rubbery' : 'flow';
+    return { modulusMPa: Ea, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: 0 };
+  }
+  const remaining = TK <= T23_K ? 1 : Math.exp(-LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23));
+  const X = m.crystallinity * remaining;
+  const Ec = g * m.EgMPa;
+  const lambda = X / m.phi;
+  const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
+  const E = lambda * series + (1 - lambda) * Ea;
+  // Semi-crystalline: the amorphous phase is in transition while its glassy part carries at least a
+  // tenth of the stiffness; the crystals then hold a plateau until the melting law takes over.
+  const region: Region =
+    remaining < 0.5 && remaining >= 0.01
+      ? 'melting'
+      : G >= 0.9
+        ? 'glassy'
+        : (1 - lambda) * glassy >= 0.1 * E
+          ? 'transition'
+          : remaining >= 0.5
+            ? 'crystalline'
+            : F >= 0.5
+              ? 'rubbery'
+              : 'flow';
+  return { modulusMPa: E, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: remaining };
+}

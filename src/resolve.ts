@@ -1,0 +1,67 @@
+/** Turning what a user gives (a family id or a parameter record) into a compiled material. */
+import { ParameterError } from './errors.js';
+import { getFamily } from './families.js';
+import { compileMaterial, type Material } from './model.js';
+import { KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
+import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
+
+/** A family id (case-insensitive) or a parameter record. */
+export type MaterialInput = string | MaterialParams;
+
+/** Compiles a family id or a parameter record into a material. */
+export function resolveMaterial(input: MaterialInput): Material {
+  return compileMaterial(typeof input === 'string' ? getFamily(input).params : input);
+}
+
+const KNOWN_KEYS = new Set<string>([...TEXT_FIELDS, ...NUMERIC_FIELDS.map((f) => f.key)]);
+
+/**
+ * Builds a parameter record from loose key/value pairs (a worksheet block or JSON). Every key must be
+ * known; numbers may come as numeric text; empty (null, undefined, '') leaves an optional field empty.
+ */
+export function paramsFromRecord(record: Readonly<Record<string, unknown>>): MaterialParams {
+  for (const key of Object.keys(record)) {
+    if (!KNOWN_KEYS.has(key)) throw new ParameterError(key, `is not a parameter name; known names are ${[...KNOWN_KEYS].join(', ')}`);
+  }
+  const text = (key: (typeof TEXT_FIELDS)[number], fallback?: string): string => {
+    const v = record[key];
+    if (v === undefined || v === null || v === '') {
+      if (fallback !== undefined) return fallback;
+      throw new ParameterError(key, 'is required');
+    }
+    if (typeof v !== 'string') throw new ParameterError(key, `must be text, got ${String(v)}`, v);
+    return v.trim();
+  };
+  const kind = text('kind');
+  if (!KINDS.includes(kind as Kind)) throw new ParameterError('kind', `must be one of ${KINDS.join(', ')}, got '${kind}'`, kind);
+  const shiftLaw = text('shiftLaw', 'hybrid');
+  if (!SHIFT_LAWS.includes(shiftLaw as ShiftLaw)) {
+    throw new ParameterError('shiftLaw', `must be one of ${SHIFT_LAWS.join(', ')}, got '${shiftLaw}'`, shiftLaw);
+  }
+  const id = text('id', 'custom');
+  const out: Record<string, unknown> = { id, name: text('name', id), kind, shiftLaw };
+  for (const f of NUMERIC_FIELDS) {
+    const v = record[f.key];
+    if (v === undefined || v === null || v === '') {
+      out[f.key] = null;
+      continue;
+    }
+    const n = typeof v === 'number' ? v : typeof v === 'string' && v.trim() !== '' ? Number(v.trim()) : NaN;
+    if (!Number.isFinite(n)) throw new ParameterError(f.key, `must be a number in ${f.unit}, got '${String(v)}'`, v);
+    out[f.key] = n;
+  }
+  const p = out as unknown as MaterialParams;
+  // Fields a kind does not use may be left empty; fill them with neutral values so the record is complete.
+  for (const f of NUMERIC_FIELDS) {
+    if (p[f.key] === null && !f.optional && !f.kinds.includes(p.kind)) (p as unknown as Record<string, number>)[f.key] = f.min;
+  }
+  return p;
+}
+
+/** The record as plain key/value pairs in block order (empty fields as null). */
+export function paramsToRecord(p: MaterialParams): Record<string, string | number | null> {
+  const out: Record<string, string | number | null> = {};
+  for (const k of TEXT_FIELDS) out[k] = p[k];
+  for (const f of NUMERIC_FIELDS) out[f.key] = p[f.key];
+  return out;
+}

@@ -1,0 +1,41 @@
+/** The derating table of a design review: modulus at service temperatures and its ratio to a reference. */
+import { modulusMPa, type Material, type Region } from './model.js';
+import { evaluateClocks } from './model.js';
+import { resolveMaterial, type MaterialInput } from './resolve.js';
+import { cToKelvin, SECONDS_PER_HOUR } from './units.js';
+
+/** Reference state of a derating ratio: 23 degC, 1 h (common practice for a short-term room-temperature value). */
+export const RATIO_REF_C = 23;
+export const RATIO_REF_S = SECONDS_PER_HOUR;
+
+export interface TableCell {
+  readonly temperatureC: number;
+  readonly modulusMPa: number;
+  readonly ratio: number;
+  readonly region: Region;
+}
+
+export interface TableRow {
+  readonly id: string;
+  readonly name: string;
+  readonly referenceMPa: number;
+  readonly cells: readonly TableCell[];
+}
+
+/** Derating ratio E(t, T) / E(tRef, Tref) (dimensionless); times in s, temperatures in K. */
+export function deratingRatio(m: Material, tS: number, TK: number, refTK = cToKelvin(RATIO_REF_C), refTS = RATIO_REF_S): number {
+  return modulusMPa(m, tS, TK) / modulusMPa(m, refTS, refTK);
+}
+
+/** Rows of moduli (MPa) and ratios for each material at each temperature (degC) after time t (s). */
+export function deratingTable(materials: readonly MaterialInput[], temperaturesC: readonly number[], tS: number): TableRow[] {
+  return materials.map((input) => {
+    const m = resolveMaterial(input);
+    const ref = modulusMPa(m, RATIO_REF_S, cToKelvin(RATIO_REF_C));
+    const cells = temperaturesC.map((T) => {
+      const e = evaluateClocks(m, tS, cToKelvin(T));
+      return { temperatureC: T, modulusMPa: e.modulusMPa, ratio: e.modulusMPa / ref, region: e.region };
+    });
+    return { id: m.params.id, name: m.params.name, referenceMPa: ref, cells };
+  });
+}

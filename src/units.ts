@@ -1,0 +1,184 @@
+/**
+ * Unit parsing at the boundary. Bare numbers are degC, hours and MPa; text with a unit goes through
+ * mathjs units (tree-shaken: only the unit system is created). Engine units: kelvin, seconds, MPa.
+ */
+import { create, createUnitDependencies, unitDependencies, type FactoryFunctionMap, type Unit } from 'mathjs';
+import { InputError } from './errors.js';
+
+// mathjs types its dependency maps as possibly undefined; both are always exported.
+const math = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap);
+
+/** 1 psi = 6894.757293168 Pa (NIST SP 811, 2008, appendix B.8); ksi is not built into mathjs. */
+export const PA_PER_PSI = 6894.757293168;
+math.createUnit('ksi', { definition: `${PA_PER_PSI * 1000} Pa` });
+// Short spellings engineers type that mathjs lacks; `year` in mathjs is the Julian year (365.25 d).
+math.createUnit('y', { definition: '1 year' });
+math.createUnit('yr', { definition: '1 year' });
+math.createUnit('d', { definition: '1 day' });
+
+/** Absolute zero on the Celsius scale (definition of the kelvin, SI Brochure 9th ed. 2019). */
+export const KELVIN_OFFSET = 273.15;
+export const SECONDS_PER_HOUR = 3600;
+/** The Julian year, 365.25 d (IAU), as mathjs uses it. */
+export const SECONDS_PER_YEAR = 31557600;
+
+type Quantity = 'temperature' | 'time' | 'stress';
+
+const SPELLINGS: Record<string, string> = {
+  '°c': 'degC',
+  '℃': 'degC',
+  degc: 'degC',
+  c: 'degC',
+  '°f': 'degF',
+  '℉': 'degF',
+  degf: 'degF',
+  f: 'degF',
+  k: 'K',
+  kelvin: 'K',
+  h: 'h',
+  hr: 'h',
+  hrs: 'h',
+  hour: 'h',
+  hours: 'h',
+  s: 's',
+  sec: 's',
+  secs: 's',
+  second: 's',
+  seconds: 's',
+  ms: 'ms',
+  min: 'min',
+  mins: 'min',
+  minute: 'min',
+  minutes: 'min',
+  d: 'd',
+  day: 'day',
+  days: 'day',
+  wk: 'week',
+  week: 'week',
+  weeks: 'week',
+  y: 'y',
+  yr: 'y',
+  yrs: 'y',
+  year: 'year',
+  years: 'year',
+  pa: 'Pa',
+  kpa: 'kPa',
+  mpa: 'MPa',
+  gpa: 'GPa',
+  psi: 'psi',
+  ksi: 'ksi',
+  'n/mm2': 'MPa',
+  'n/mm^2': 'MPa',
+  'n/mm²': 'MPa',
+};
+
+const BASE: Record<Quantity, { unit: string; word: string; examples: string }> = {
+  temperature: { unit: 'K', word: 'a temperature unit', examples: "'80 degC', '176 degF' or '350 K'" },
+  time: { unit: 's', word: 'a time unit', examples: "'1000 h', '10 s', '2 weeks' or '5 years'" },
+  stress: { unit: 'Pa', word: 'a stress unit', examples: "'2400 MPa', '2.4 GPa' or '300 ksi'" },
+};
+
+const NUMBER_THEN_UNIT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*)$/;
+
+function parseUnitText(text: string, argument: string, quantity: Quantity): Unit {
+  const spec = BASE[quantity];
+  const trimmed = text.trim();
+  const match = NUMBER_THEN_UNIT.exec(trimmed);
+  if (!match || match[1] === undefined) {
+    throw new InputError(argument, `expected a number or a number with ${spec.word} such as ${spec.examples}, got '${text}'`);
+  }
+  const numberText = match[1];
+  const unitText = (match[2] ?? '').trim();
+  const canonical = SPELLINGS[unitText] ?? SPELLINGS[unitText.toLowerCase()] ?? unitText;
+  let unit: Unit;
+  try {
+    unit = math.unit(`${numberText} ${canonical}`);
+  } catch {
+    throw new InputError(argument, `unknown unit '${unitText}' in '${text}'; use ${spec.examples}`);
+  }
+  if (!unit.equalBase(math.unit(`1 ${spec.unit}`))) {
+    throw new InputError(argument, `${quantity} needs ${spec.word}, got '${text}'`);
+  }
+  return unit;
+}
+
+function finiteOrThrow(value: number, argument: string, what: string): number {
+  if (!Number.isFinite(value)) throw new InputError(argument, `${what} must be a finite number, got ${String(value)}`);
+  return value;
+}
+
+/** Parses a temperature (bare number: degC) to kelvin; rejects values below absolute zero. */
+export function parseTemperatureK(input: number | string, argument = 'temperature'): number {
+  let kelvin: number;
+  if (typeof input === 'number') {
+    kelvin = finiteOrThrow(input, argument, 'a temperature') + KELVIN_OFFSET;
+  } else {
+    if (input.trim() === '') throw new InputError(argument, 'a temperature is required, got empty text');
+    const bare = Number(input.trim());
+    kelvin = Number.isFinite(bare) ? bare + KELVIN_OFFSET : parseUnitText(input, argument, 'temperature').toNumber('K');
+  }
+  finiteOrThrow(kelvin, argument, 'a temperature');
+  if (kelvin <= 0) {
+    throw new InputError(argument, `${formatInput(input)} is at or below absolute zero (-273.15 degC)`);
+  }
+  return kelvin;
+}
+
+/** Parses a duration (bare number: hours) to seconds; it must be positive and finite. */
+export function parseTimeS(input: number | string, argument = 'time'): number {
+  let seconds: number;
+  if (typeof input === 'number') {
+    seconds = finiteOrThrow(input, argument, 'a time') * SECONDS_PER_HOUR;
+  } else {
+    if (input.trim() === '') throw new InputError(argument, 'a time is required, got empty text');
+    const bare = Number(input.trim());
+    seconds = Number.isFinite(bare) ? bare * SECONDS_PER_HOUR : parseUnitText(input, argument, 'time').toNumber('s');
+  }
+  finiteOrThrow(seconds, argument, 'a time');
+  if (seconds <= 0) throw new InputError(argument, `a time must be greater than zero, got ${formatInput(input)}`);
+  return seconds;
+}
+
+/** Parses a modulus or stress (bare number: MPa) to MPa; it must be positive and finite. */
+export function parseStressMPa(input: number | string, argument = 'modulus'): number {
+  let mpa: number;
+  if (typeof input === 'number') {
+    mpa = finiteOrThrow(input, argument, 'a stress or modulus');
+  } else {
+    if (input.trim() === '') throw new InputError(argument, 'a value is required, got empty text');
+    const bare = Number(input.trim());
+    mpa = Number.isFinite(bare) ? bare : parseUnitText(input, argument, 'stress').toNumber('MPa');
+  }
+  finiteOrThrow(mpa, argument, 'a stress or modulus');
+  if (mpa <= 0) throw new InputError(argument, `must be greater than zero, got ${formatInput(input)}`);
+  return mpa;
+}
+
+/** Converts MPa to a named stress unit (Pa, kPa, MPa, GPa, psi, ksi). */
+export function convertStressFromMPa(mpa: number, unitName: string, argument = 'unit'): number {
+  const canonical = SPELLINGS[unitName.trim().toLowerCase()] ?? unitName.trim();
+  let target: Unit;
+  try {
+    target = math.unit(`1 ${canonical}`);
+  } catch {
+    throw new InputError(argument, `unknown unit '${unitName}'; use MPa, GPa, kPa, Pa, psi or ksi`);
+  }
+  if (!target.equalBase(math.unit('1 Pa'))) {
+    throw new InputError(argument, `needs a stress unit (MPa, GPa, kPa, Pa, psi, ksi), got '${unitName}'`);
+  }
+  return math.unit(mpa, 'MPa').toNumber(canonical);
+}
+
+/** Kelvin to degC. */
+export function kelvinToC(kelvin: number): number {
+  return kelvin - KELVIN_OFFSET;
+}
+
+/** degC to kelvin. */
+export function cToKelvin(celsius: number): number {
+  return celsius + KELVIN_OFFSET;
+}
+
+function formatInput(input: number | string): string {
+  return typeof input === 'number' ? String(input) : `'${input}'`;
+}
