@@ -1,8 +1,13 @@
-// Builds every bundle with esbuild: the CLI and the benchmark (Node). Other entries join this list.
-import { build } from 'esbuild';
-import { mkdirSync } from 'node:fs';
+// Runs every build step in scripts/build/*.mjs (each exports `default async function`), in name order.
+// A step that finds a problem (metadata errors, a bundle over budget) throws, and the build fails.
+import { mkdirSync, readdirSync } from 'node:fs';
+import { pathToFileURL } from 'node:url';
 
 mkdirSync('dist', { recursive: true });
-const node = { bundle: true, platform: 'node', format: 'esm', target: 'node20', sourcemap: true, logLevel: 'warning' };
-await build({ ...node, entryPoints: ['src/cli/main.ts'], outfile: 'dist/cli.js' });
-await build({ ...node, entryPoints: ['bench/bench.ts'], outfile: 'dist/bench.js' });
+const dir = new URL('./build/', import.meta.url);
+for (const file of readdirSync(dir)
+  .filter((f) => f.endsWith('.mjs'))
+  .sort()) {
+  const step = await import(pathToFileURL(new URL(file, dir).pathname).href);
+  await step.default();
+}
