@@ -9,7 +9,7 @@
  *   amorphous         E = g [(Eg - Ep) G + Ep F]
  *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, Ec = g Eg,
  *                     Ea = amorphous E, lambda phi = X(T), X(T) = X exp(-ln20 [(T/Tm)^m - (T23/Tm)^m])
- *                     above 23 degC (melting; X at and below 23 degC)
+ *                     above 23 degC (melting; X at and below 23 degC), times exp(-(T - Tm)/2 K) above Tm
  *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113)
  *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
  * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
@@ -32,6 +32,8 @@ export const DATASHEET_TIME_S = 10;
 /** Crystalline fraction left at Tm, relative to 23 degC, in the melting law (set here: 5 % survive to the DSC peak). */
 export const MELT_REMAINING_AT_TM = 0.05;
 const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
+/** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
+export const MELT_TAIL_K = 2;
 
 export type Region = 'glassy' | 'transition' | 'rubbery' | 'flow' | 'crystalline' | 'melting';
 export const REGIONS: readonly Region[] = ['glassy', 'transition', 'rubbery', 'flow', 'crystalline', 'melting'];
@@ -175,7 +177,8 @@ export function evaluateReduced(m: Material, xi: number, theta: number, TK: numb
     const region: Region = G >= 0.9 ? 'glassy' : glassy > rubbery ? 'transition' : F >= 0.5 ? 'rubbery' : 'flow';
     return { modulusMPa: Ea, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: 0 };
   }
-  const remaining = TK <= T23_K ? 1 : Math.exp(-LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23));
+  const remaining =
+    TK <= T23_K ? 1 : Math.exp(-LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23) - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
   const X = m.crystallinity * remaining;
   const Ec = g * m.EgMPa;
   const lambda = X / m.phi;

@@ -340,7 +340,7 @@ export async function main(argv: readonly string[], out: Out, err: Out): Promise
     command.run(values as Values, out);
     return 0;
   } catch (e) {
-    err.write(`resin-derate ${name}: ${describeError(e)}\n`);
+    err.write(`resin-derate ${name}: ${describeError(e).replace(/\s*\n\s*/g, ' ')}\n`);
     return 2;
   }
 }

@@ -1,0 +1,206 @@
+import { describe, expect, it } from 'vitest';
+import {
+  apparentTgK,
+  bandEstimate,
+  blankParams,
+  compileMaterial,
+  DATASHEET_TIME_S,
+  evaluateClocks,
+  FAMILIES,
+  getFamily,
+  maxTemperatureK,
+  maxTimeS,
+  modulusMPa,
+  shiftLog10,
+  T23_K,
+  type MaterialParams,
+} from '../src/index.js';
+import { expectClose } from './expect.js';
+
+const temps = Array.from({ length: 60 }, (_, i) => 173.15 + i * 8); // -100 to 372 degC
+const times = Array.from({ length: 25 }, (_, i) => 10 ** (-2 + i * 0.5)); // 10 ms to 1e10 s
+
+function rubber(overrides: Partial<MaterialParams> = {}): MaterialParams {
+  return { ...blankParams('test-rubber', 'crosslinked'), Tg_C: -60, Eg_MPa: 2000, density_kgm3: 1000, Mc_kgmol: 5, ...overrides };
+}
+
+describe('the four-region model over every bundled family', () => {
+  for (const f of FAMILIES) {
+    const m = compileMaterial(f.params);
+    it(`${f.params.id}: finite, positive or zero, bounded by the glassy modulus`, () => {
+      for (const T of temps) {
+        for (const t of times) {
+          const E = modulusMPa(m, t, T);
+          expect(Number.isFinite(E)).toBe(true);
+          expect(E).toBeGreaterThanOrEqual(0);
+          expect(E).toBeLessThanOrEqual(m.EgMPa * (1 + 1e-12));
+        }
+      }
+    });
+    it(`${f.params.id}: non-increasing in time at every temperature`, () => {
+      for (const T of temps) {
+        let prev = Infinity;
+        for (const t of times) {
+          const E = modulusMPa(m, t, T);
+          expect(E).toBeLessThanOrEqual(prev * (1 + 1e-12));
+          prev = E;
+        }
+      }
+    });
+    it(`${f.params.id}: non-increasing in temperature (except a rubber network's entropic rise)`, () => {
+      for (const t of times) {
+        let prev = Infinity;
+        for (const T of temps) {
+          const e = evaluateClocks(m, t, T);
+          if (!(m.kind === 'crosslinked' && e.region === 'rubbery')) expect(e.modulusMPa).toBeLessThanOrEqual(prev * (1 + 1e-12));
+          prev = e.modulusMPa;
+        }
+      }
+    });
+    it(`${f.params.id}: continuous across Tg`, () => {
+      const Tg = f.params.Tg_C + 273.15;
+      for (const t of [1, 3600, 3.6e6]) {
+        const below = modulusMPa(m, t, Tg - 1e-7);
+        const above = modulusMPa(m, t, Tg + 1e-7);
+        expect(Math.abs(below - above)).toBeLessThanOrEqual(1e-5 * Math.max(below, 1e-9));
+      }
+    });
+    if (f.params.E23_MPa !== null) {
+      it(`${f.params.id}: reproduces its datasheet modulus at 23 degC over the datasheet loading time`, () => {
+        expectClose(modulusMPa(m, DATASHEET_TIME_S, T23_K), f.params.E23_MPa ?? NaN, { rel: 1e-9, source: 'anchor definition (model.ts)' });
+      });
+    }
+  }
+});
+
+describe('time-temperature superposition', () => {
+  it('is exact for an amorphous material without slow creep: E(t, T) = E(t / aT, Tg)', () => {
+    const p = { ...getFamily('PS').params, creepN: 0 };
+    const m = compileMaterial(p);
+    const Tg = p.Tg_C + 273.15;
+    for (const T of [300, 350, Tg, 380, 400]) {
+      for (const t of [1, 100, 1e4, 1e6]) {
+        const reduced = t / 10 ** shiftLog10(m.shift, T);
+        expectClose(modulusMPa(m, t, T), modulusMPa(m, reduced, Tg), {
+          rel: 1e-9,
+          abs: 1e-300,
+          source: 'thermorheological simplicity (Ferry 1980, ch. 11), identity',
+        });
+      }
+    }
+  });
+});
+
+describe('rubber elasticity', () => {
+  it('gives E = 3 rho R T / Mc = 1.49 MPa for Mc 5 kg/mol, rho 1000 kg/m3, 298 K', () => {
+    const m = compileMaterial(rubber());
+    const E = modulusMPa(m, 3.6e6, 298);
+    expectClose(E, (3 * 1000 * 8.314462618 * 298) / 5 / 1e6, {
+      rel: 1e-6,
+      source: 'affine network, Flory 1953; Treloar 1975 (closed form)',
+    });
+    expectClose(E, 1.5, { rel: 0.01, source: 'worked value E ~ 1.5 MPa (G 0.50 MPa), REFERENCES.md (derived)' });
+  });
+  it('rises in proportion to absolute temperature on the plateau (documented entropic rise)', () => {
+    const m = compileMaterial(rubber());
+    expectClose(modulusMPa(m, 3.6e6, 373.15) / modulusMPa(m, 3.6e6, 298.15), 373.15 / 298.15, {
+      rel: 1e-6,
+      source: 'E proportional to T (Treloar 1975)',
+    });
+  });
+});
+
+describe('regions', () => {
+  it('walks an amorphous polymer from glassy through transition and plateau to flow', () => {
+    const m = compileMaterial(getFamily('PS').params);
+    const regions = [20, 100, 110, 125, 160].map((T) => evaluateClocks(m, 10, T + 273.15).region);
+    expect(regions[0]).toBe('glassy');
+    expect(regions).toContain('transition');
+    expect(regions[regions.length - 1]).toBe('flow');
+  });
+  it('puts a semi-crystalline polymer on a crystal plateau between Tg and the melting range', () => {
+    const pa = compileMaterial(getFamily('PA66-dry').params);
+    const mid = evaluateClocks(pa, 3600, 150 + 273.15);
+    expect(mid.region).toBe('crystalline');
+    // Tobolsky 1960 (from memory): semi-crystalline between Tg and Tm 10^7.5 to 10^9 Pa, far above a rubber plateau.
+    expect(mid.modulusMPa).toBeGreaterThan(10 ** 1.5);
+    expect(mid.modulusMPa).toBeLessThan(1000);
+    expect(evaluateClocks(pa, 3600, 262 + 273.15).region).toBe('melting');
+    expect(modulusMPa(pa, 3600, 300 + 273.15)).toBeLessThan(1);
+  });
+});
+
+describe('band', () => {
+  it('orders low <= central <= high and widens with the family ranges', () => {
+    for (const f of FAMILIES) {
+      const m = compileMaterial(f.params);
+      for (const T of [253.15, 296.15, 353.15, 393.15]) {
+        const b = bandEstimate(m, 3.6e6, T);
+        expect(b.lowMPa).toBeLessThanOrEqual(b.centralMPa);
+        expect(b.centralMPa).toBeLessThanOrEqual(b.highMPa);
+      }
+    }
+    const pc = bandEstimate(compileMaterial(getFamily('PC').params), 3600, 296.15);
+    expect(pc.highMPa / pc.lowMPa).toBeGreaterThan(1.05);
+  });
+});
+
+describe('inverse answers', () => {
+  it('MAXTEMP round-trips within 1e-6 for every family that reaches the target', () => {
+    for (const f of FAMILIES) {
+      const m = compileMaterial(f.params);
+      const target = 0.3 * modulusMPa(m, 3600, T23_K);
+      const a = maxTemperatureK(m, target, 3.6e6);
+      if (a.status !== 'found' || a.value === null) continue;
+      expectClose(modulusMPa(m, 3.6e6, a.value), target, { rel: 1e-6, source: 'inverse pair (round trip)' });
+    }
+  });
+  it('MAXTIME round-trips within 1e-6', () => {
+    const m = compileMaterial(getFamily('PBT').params);
+    const a = maxTimeS(m, 1000, 333.15);
+    expect(a.status).toBe('found');
+    expectClose(modulusMPa(m, a.value ?? NaN, 333.15), 1000, { rel: 1e-6, source: 'inverse pair (round trip)' });
+  });
+  it('says so explicitly when the target is out of reach', () => {
+    const pc = compileMaterial(getFamily('PC').params);
+    expect(maxTimeS(pc, 100, 296.15).status).toBe('above-throughout');
+    expect(maxTimeS(pc, 5000, 296.15).status).toBe('below-throughout');
+    expect(maxTemperatureK(pc, 5000, 3600).status).toBe('below-throughout');
+    const epdm = compileMaterial(getFamily('EPDM').params);
+    expect(maxTemperatureK(epdm, 1, 3600).status).toBe('above-throughout');
+  });
+  it('finds the last crossing of a crosslinked rubber despite the entropic rise', () => {
+    const ep = compileMaterial(getFamily('EP').params);
+    const a = maxTemperatureK(ep, 500, 3600);
+    expect(a.status).toBe('found');
+    expectClose(modulusMPa(ep, 3600, a.value ?? NaN), 500, { rel: 1e-6, source: 'inverse pair (round trip)' });
+  });
+  it('apparent Tg equals Tg at the glass-transition time and falls for longer times', () => {
+    const pc = compileMaterial(getFamily('PC').params);
+    expectClose(apparentTgK(pc, pc.tauTg) ?? NaN, 147 + 273.15, { abs: 1e-9, source: 'definition of Tg at tauTg (model.ts)' });
+    expect(apparentTgK(pc, 3.6e6) ?? Infinity).toBeLessThan(147 + 273.15);
+    expect(apparentTgK(pc, 1) ?? 0).toBeGreaterThan(147 + 273.15);
+  });
+});
+
+describe('parameter validation names the field', () => {
+  const base = getFamily('PA6-dry').params;
+  const cases: [Partial<MaterialParams>, RegExp][] = [
+    [{ Tg_C: 900 }, /parameter Tg_C: 900 degC is outside/],
+    [{ Tm_C: 40 }, /parameter Tm_C: 40 degC must be at least 10 K above Tg_C .* swapped/],
+    [{ beta: 0 }, /parameter beta/],
+    [{ crystallinity: 0.99 }, /parameter crystallinity/],
+    [{ crystalContinuity: 0.2 }, /parameter crystalContinuity: 0.2 must be at least the crystallinity/],
+    [{ Eg_MPa: 3000 }, /give exactly one of E23_MPa/],
+    [{ E23_MPa: null }, /give exactly one of E23_MPa/],
+    [{ C2_K: NaN }, /parameter C2_K: must be a finite number/],
+    [{ Tg_low_C: 70 }, /parameter Tg_low_C: 70 must not exceed Tg_C/],
+    [{ kind: 'amorphous' }, /parameter Tm_C: is only used for semicrystalline/],
+    [{ E23_MPa: 19900, E23_high_MPa: null }, /parameter E23_MPa: 19900 MPa cannot be reached/],
+  ];
+  for (const [change, message] of cases) {
+    it(`rejects ${JSON.stringify(change)}`, () => {
+      expect(() => compileMaterial({ ...base, ...change } as MaterialParams)).toThrow(message);
+    });
+  }
+});
