@@ -12,3 +12,4 @@ export * from './band.js';
 export * from './history.js';
 export * from './hdt.js';
 export * from './table.js';
+export * from './stress.js';

@@ -154,6 +154,18 @@ export function parseStressMPa(input: number | string, argument = 'modulus'): nu
   return mpa;
 }
 
+/** Parses a strain: a bare number is a fraction (0.005), text may be a percentage ('0.5 %'). */
+export function parseStrain(input: number | string, argument = 'strain'): number {
+  if (typeof input === 'number') return finiteOrThrow(input, argument, 'a strain');
+  const text = input.trim();
+  if (text === '') throw new InputError(argument, 'a strain is required, got empty text');
+  const percent = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*%$/.exec(text);
+  const value = percent?.[1] !== undefined ? Number(percent[1]) / 100 : Number(text);
+  if (!Number.isFinite(value))
+    throw new InputError(argument, `expected a fraction such as 0.005 or a percentage such as '0.5 %', got '${input}'`);
+  return value;
+}
+
 /** Converts MPa to a named stress unit (Pa, kPa, MPa, GPa, psi, ksi). */
 export function convertStressFromMPa(mpa: number, unitName: string, argument = 'unit'): number {
   const canonical = SPELLINGS[unitName.trim().toLowerCase()] ?? unitName.trim();

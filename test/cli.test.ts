@@ -82,6 +82,11 @@ describe('resin-derate CLI contract', () => {
       'beyond 100 years',
     );
     expect((json('tgat', '--family', 'PC', '--time', '100 s') as Record<string, number>)['temperature_C']).toBeCloseTo(147, 9);
+    const st = json('stress', '--family', 'PC', '--strain', '0.5 %', '--temp', '80', '--time', '1000 h') as Record<string, number>;
+    expectClose(st['stress_MPa'] ?? NaN, 0.005 * modulusMPa(compileMaterial(getFamily('PC').params), 3.6e6, 353.15), {
+      rel: 1e-12,
+      source: 'sigma = E_r eps0',
+    });
     expect(typeof (json('hdt', '--family', 'PC', '--stress', '1.8') as Record<string, unknown>)['temperature_C']).toBe('number');
   });
 
@@ -106,7 +111,7 @@ describe('resin-derate CLI contract', () => {
   });
 
   it('has --help on every command', () => {
-    for (const c of ['families', 'params', 'modulus', 'shift', 'maxtemp', 'maxtime', 'tgat', 'eqtime', 'hdt', 'table', 'demo']) {
+    for (const c of ['families', 'params', 'modulus', 'shift', 'maxtemp', 'maxtime', 'tgat', 'eqtime', 'stress', 'hdt', 'table', 'demo']) {
       const r = cli(c, '--help');
       expect(r.code).toBe(0);
       expect(r.out).toMatch(/Usage: resin-derate/);

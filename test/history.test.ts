@@ -1,5 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { compileMaterial, equivalentTimeS, getFamily, modulusAfterHistory, modulusMPa, shiftLog10 } from '../src/index.js';
+import {
+  compileMaterial,
+  equivalentTimeS,
+  getFamily,
+  modulusAfterHistory,
+  modulusMPa,
+  parseStrain,
+  retainedStressAfterHistoryMPa,
+  retainedStressMPa,
+  shiftLog10,
+} from '../src/index.js';
 import { expectClose } from './expect.js';
 
 const pc = compileMaterial(getFamily('PC').params);
@@ -35,5 +45,24 @@ describe('duty cycles', () => {
     expect(() => equivalentTimeS(pc, [], 300)).toThrow(/durations: needs at least one segment/);
     expect(() => equivalentTimeS(pc, [{ TK: 300, dtS: -1 }], 300)).toThrow(/durations: segment 1/);
     expect(() => equivalentTimeS(pc, [{ TK: 300, dtS: 1 }], 300, 0)).toThrow(/cycles/);
+  });
+});
+
+describe('retained stress at fixed strain', () => {
+  it('is E_r(t, T) times the strain', () => {
+    const r = retainedStressMPa(pc, 0.005, 3.6e6, 353.15);
+    expectClose(r.stressMPa, 0.005 * modulusMPa(pc, 3.6e6, 353.15), {
+      rel: 1e-12,
+      source: 'sigma = E_r eps0 (definition of the relaxation modulus)',
+    });
+    expect(r.beyondLinearRange).toBe(false);
+    const h = retainedStressAfterHistoryMPa(pc, parseStrain('0.5 %'), [{ TK: 353.15, dtS: 3.6e6 }]);
+    expectClose(h.stressMPa, r.stressMPa, { rel: 1e-12, source: 'constant history identity' });
+    expect(retainedStressMPa(pc, 0.02, 3600, 300).beyondLinearRange).toBe(true);
+  });
+  it('rejects strains given as percent numbers or non-positive', () => {
+    expect(() => retainedStressMPa(pc, 0.5, 3600, 300)).toThrow(/strain: 0.5 is above 0.1/);
+    expect(() => retainedStressMPa(pc, 0, 3600, 300)).toThrow(/strain: must be a positive fraction/);
+    expect(() => parseStrain('half')).toThrow(/strain: expected a fraction/);
   });
 });

@@ -4,6 +4,9 @@ import { parseArgs, type ParseArgsConfig } from 'node:util';
 import {
   apparentTgK,
   bandEstimate,
+  checkStrain,
+  parseStrain,
+  retainedStressMPa,
   deratingTable,
   equivalentTimeS,
   FAMILIES,
@@ -255,6 +258,25 @@ const COMMANDS: Record<string, Command> = {
           region: after.region,
         },
         `${sig(teq / 3600, 4)} h at ${sig(kelvinToC(refK), 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+      );
+    },
+  },
+  stress: {
+    summary: 'stress retained at a fixed strain (press-fit, snap held closed) after a time at a temperature',
+    usage: "resin-derate stress --family ID --strain '0.5 %' --temp '80 degC' --time '1000 h' [--json]",
+    options: { ...material, strain: { type: 'string' }, temp: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const strain = checkStrain(parseStrain(str(v, 'strain'), '--strain'), '--strain');
+      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const r = retainedStressMPa(m, strain, tS, TK);
+      const warn = r.beyondLinearRange ? ' (strain above about 1 %: beyond the usual linear range, estimate likely high)' : '';
+      emit(
+        out,
+        v,
+        { stress_MPa: r.stressMPa, modulus_MPa: r.modulusMPa, region: r.region, strain, beyond_linear_range: r.beyondLinearRange },
+        `${sig(r.stressMPa)} MPa retained (modulus ${sig(r.modulusMPa)} MPa, ${r.region})${warn}\n`,
       );
     },
   },
