@@ -190,7 +190,9 @@ describe('scripts/serve.mjs over http (test mode)', () => {
         return route.abort();
       });
       await page.goto(`${base}page.html`);
-      await page.waitForFunction(() => (window as unknown as { violations?: string[] }).violations?.includes('img-src'));
+      await page.waitForFunction(() => (window as unknown as { violations?: string[] }).violations?.includes('img-src'), undefined, {
+        timeout: 10_000,
+      });
       const seen = await page.evaluate(() => {
         const w = window as unknown as { appRan?: boolean; inlineRan?: boolean; evalRan?: boolean; violations: string[] };
         const near = document.getElementById('near') as HTMLImageElement;
