@@ -213,6 +213,15 @@ describe('build step 40-manifest', () => {
     }
     expect(existsSync('dist/support.html')).toBe(true);
   });
+  it('leaves no manifest URL pointing at a file missing from dist/', () => {
+    // taskpane.html, functions.js and functions.json come from the pane and functions builds; on a branch without
+    // those builds they are absent, everything else must be there.
+    const fromOtherBuilds = ['/taskpane.html', '/functions.js', '/functions.json'];
+    const { summary } = checkManifest(readFileSync('dist/manifest.xml', 'utf8'), OPTIONS);
+    const missing = (summary?.urls ?? []).map((u) => new URL(u).pathname).filter((p) => !existsSync(`dist${p}`));
+    expect(missing.filter((p) => !fromOtherBuilds.includes(p))).toEqual([]);
+    expect(summary?.urls.length).toBeGreaterThanOrEqual(8);
+  });
   it('fails the build for a bad deployment origin', () => {
     const run = spawnSync(
       process.execPath,
