@@ -136,7 +136,7 @@ function spec<T>(s: Omit<ArgSpec<T>, 'parse' | 'optional'> & Common, parseOne: (
   const parse = (raw: unknown): T => {
     const v = scalarOf(raw, s.name, what);
     if (v === null) {
-      if (!optional) throw problem(s.name, `is required: type ${what}`);
+      if (!optional) throw problem(s.name, `is missing; type ${what}`);
       if (s.default === undefined) return undefined as T;
       return parseOne(s.default);
     }
@@ -164,11 +164,11 @@ function show(input: number | string): string {
   return typeof input === 'number' ? String(input) : `"${input}"`;
 }
 
-const TEMPERATURE_WHAT = 'a temperature: a number in degC, or text such as "176 degF" or "350 K"';
-const TIME_WHAT = 'a time: a number in hours, or text such as "1000 h", "2 weeks" or "10 years"';
-const MODULUS_WHAT = 'a modulus: a number in MPa, or text such as "2.4 GPa" or "300 ksi"';
-const STRESS_WHAT = 'a stress: a number in MPa, or text such as "1.8 MPa" or "260 psi"';
-const STRAIN_WHAT = 'a strain: a fraction such as 0.005, or text such as "0.5 %"';
+const TEMPERATURE_WHAT = 'a temperature (a number in degC, or text such as "176 degF" or "350 K")';
+const TIME_WHAT = 'a time (a number in hours, or text such as "1000 h", "2 weeks" or "10 years")';
+const MODULUS_WHAT = 'a modulus (a number in MPa, or text such as "2.4 GPa" or "300 ksi")';
+const STRESS_WHAT = 'a stress (a number in MPa, or text such as "1.8 MPa" or "260 psi")';
+const STRAIN_WHAT = 'a strain (a fraction such as 0.005, or text such as "0.5 %")';
 
 /** A temperature; parsed to kelvin. */
 export function temperature(name: string, o: Common = {}): ArgSpec<number> {
@@ -389,7 +389,7 @@ export function material(name: string): ArgSpec<Material> {
       }
     }
     const v = scalarOf(raw, name, MATERIAL_WHAT);
-    if (v === null) throw problem(name, `is required: type ${MATERIAL_WHAT}`);
+    if (v === null) throw problem(name, `is missing; type ${MATERIAL_WHAT}`);
     if (typeof v !== 'string') throw problem(name, `expects ${MATERIAL_WHAT}, got the number ${v}`);
     return compileMaterial(familyOf(name, v).params);
   };

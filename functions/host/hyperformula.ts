@@ -95,8 +95,11 @@ export function derateHyperFormulaPlugin(defs: readonly FunctionDef[] = definiti
 
     evaluate(def: FunctionDef, ast: ProcedureLike, state: unknown): unknown {
       const expected = def.result === 'matrix' ? def.spillSize(this.shapes(ast, state)) : undefined;
-      return this.runFunction(ast.args as never, state as never, this.metadata(`DERATE.${def.id}`), (...args: unknown[]) =>
-        toHyperFormula(def.invoke(...args.map(fromHyperFormula)), expected),
+      return this.runFunction(
+        ast.args as never,
+        state as never,
+        this.metadata(`DERATE.${def.id}`),
+        (...args: unknown[]) => toHyperFormula(def.invoke(...args.map(fromHyperFormula)), expected) as never,
       );
     }
 
@@ -113,7 +116,7 @@ export function derateHyperFormulaPlugin(defs: readonly FunctionDef[] = definiti
     DeratePlugin.implementedFunctions[`DERATE.${def.id}`] = {
       method,
       parameters: def.args.map((a) => ({
-        argumentType: a.shape === 'matrix' ? FunctionArgumentType.ANY : FunctionArgumentType.SCALAR,
+        argumentType: a.shape === 'matrix' ? FunctionArgumentType.ANY : FunctionArgumentType.NOERROR,
         ...(a.optional ? { optionalArg: true } : {}),
       })),
       ...(def.result === 'matrix' ? { sizeOfResultArrayMethod: `${method}_size`, vectorizationForbidden: true } : {}),
@@ -145,8 +148,8 @@ export function registerDeratePlugin(): void {
   registered = true;
 }
 
-/** A HyperFormula instance with DERATE.* registered, from sheets of raw cell contents. */
+/** A HyperFormula instance with DERATE.* registered, from sheets of raw cell contents; numbers come back unrounded. */
 export function derateWorkbook(sheets: Record<string, unknown[][]>, config: Partial<ConfigParams> = {}): HyperFormula {
   registerDeratePlugin();
-  return HyperFormula.buildFromSheets(sheets as never, { licenseKey: 'gpl-v3', ...config });
+  return HyperFormula.buildFromSheets(sheets as never, { licenseKey: 'gpl-v3', smartRounding: false, ...config });
 }
