@@ -7,22 +7,7 @@ import type { ArgKind, ArgSpec } from '../functions/core/args.js';
 import { SheetError, type ErrorCode } from '../functions/core/cells.js';
 import type { FunctionDef } from '../functions/core/define.js';
 import { loadFunctions } from './support/functions.js';
-
-const VALID: Record<ArgKind, unknown> = {
-  material: [['PC']],
-  materials: [['PC'], ['PBT']],
-  family: 'PC',
-  temperature: 80,
-  temperatures: [[70], [30]],
-  time: 1000,
-  durations: [[8], [16]],
-  modulus: 800,
-  stress: 1.8,
-  strain: 0.01,
-  count: 5,
-  cycles: 10,
-};
-const VALID_BY_NAME: Record<string, unknown> = { from_temperature: 20, to_temperature: 200, required_modulus: 2000 };
+import { validArgs } from './support/samples.js';
 
 interface Bad {
   readonly value: unknown;
@@ -160,10 +145,6 @@ const BY_KIND: Record<ArgKind, readonly Bad[]> = {
   ],
   cycles: [{ value: 0, code: '#VALUE!', says: 'greater than zero' }, { value: 'many', code: '#VALUE!', says: 'many' }, SCALAR_RANGE],
 };
-
-function validArgs(def: FunctionDef): unknown[] {
-  return def.args.map((a) => (a.name in VALID_BY_NAME ? VALID_BY_NAME[a.name] : VALID[a.kind]));
-}
 
 function badValues(a: ArgSpec<unknown>): Bad[] {
   const list = [...COMMON, ...BY_KIND[a.kind]];
