@@ -3,7 +3,8 @@
  * and argument is described with its unit, each exported JSDoc function delegates to its definition,
  * and each function has an example in the README and a test.
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { FunctionDef } from '../functions/core/define.js';
 import { functionsMetadata, type Associate, type MetadataFunction } from '../scripts/build/20-functions.mjs';
@@ -83,6 +84,27 @@ describe('functions metadata', () => {
         def.invoke(...args.map(() => 'nonsense')),
       );
     }
+  });
+});
+
+describe('metadata generator', () => {
+  it('runs on the pinned TypeScript 5.9.3', () => {
+    const fromTool = createRequire(createRequire(import.meta.url).resolve('custom-functions-metadata'));
+    const ts = fromTool('typescript/package.json') as { version: string };
+    expect(ts.version).toBe('5.9.3');
+  });
+
+  it('fails the build step on a reported error instead of writing partial metadata', async () => {
+    mkdirSync('test-output', { recursive: true });
+    const bad = 'test-output/bad-function.ts';
+    writeFileSync(
+      bad,
+      '/**\n * Has a type the metadata cannot express.\n * @customfunction BAD\n * @param x A map.\n */\nexport function bad(x: Map<string, number>): number {\n  return x.size;\n}\n',
+    );
+    await expect(functionsMetadata([bad])).rejects.toThrow(/does not support type "Map"/);
+    const undocumented = 'test-output/undocumented-function.ts';
+    writeFileSync(undocumented, '/**\n * @customfunction NODOC\n */\nexport function nodoc(x: number): number {\n  return x;\n}\n');
+    await expect(functionsMetadata([undocumented])).rejects.toThrow(/NODOC: no description/);
   });
 });
 

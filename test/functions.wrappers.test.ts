@@ -31,3 +31,16 @@ describe('errors carry messages that name the argument', () => {
     }
   });
 });
+
+describe('parameter blocks', () => {
+  it('reads field names without regard to case and ignores a header row and extra columns', async () => {
+    const { definition } = await import('../functions/core/define.js');
+    const { paramsBlock } = await import('../functions/core/block.js');
+    const { getFamily } = await import('../src/index.js');
+    const modulus = definition('MODULUS');
+    const block = paramsBlock(getFamily('PBT').params);
+    const lower = block.map((r, i) => (i === 0 ? r : [String(r[0]).toLowerCase(), r[1]]));
+    expect(modulus?.invoke(lower, 60, 1000)).toBe(modulus?.invoke('PBT', 60, 1000));
+    expect(modulus?.invoke(block.slice(1), 60, 1000)).toBe(modulus?.invoke('PBT', 60, 1000));
+  });
+});

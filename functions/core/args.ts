@@ -333,15 +333,32 @@ export function family(name: string): ArgSpec<Family> {
   );
 }
 
-function closestField(key: string): string[] {
+function editDistance(a: string, b: string): number {
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= b.length; j++)
+      cur[j] = Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + (a[i - 1] === b[j - 1] ? 0 : 1));
+    prev = cur;
+  }
+  return prev[b.length] ?? 0;
+}
+
+/** Field names are matched without regard to case; a typo gets up to three close names. */
+const FIELD_BY_LOWER = new Map(BLOCK_FIELDS.map((f) => [f.toLowerCase(), f]));
+
+function closestFields(key: string): string[] {
   const k = key.toLowerCase();
-  return BLOCK_FIELDS.filter((f) => f.toLowerCase().startsWith(k.slice(0, 2)) || k.startsWith(f.toLowerCase().slice(0, 3))).slice(0, 3);
+  return BLOCK_FIELDS.map((f) => ({ f, d: editDistance(k, f.toLowerCase()) }))
+    .filter((x) => x.d <= Math.max(2, Math.floor(k.length / 3)))
+    .sort((a, b) => a.d - b.d)
+    .slice(0, 3)
+    .map((x) => x.f);
 }
 
 /** Parameter record from a block range (field names in the first column, values in the second). */
 function recordFromBlock(name: string, block: unknown[][]): Record<string, unknown> {
   const record: Record<string, unknown> = {};
-  const known = new Set(BLOCK_FIELDS);
   block.forEach((row, i) => {
     const key = row[0];
     if (isEmpty(key)) {
@@ -350,12 +367,13 @@ function recordFromBlock(name: string, block: unknown[][]): Record<string, unkno
     }
     if (key instanceof SheetError) throw carried(name, key, `row ${i + 1}: `);
     if (typeof key !== 'string') throw problem(name, `row ${i + 1}: the first column must hold field names, got ${String(key)}`);
-    const field = key.trim();
-    if (i === 0 && field === BLOCK_HEADER[0]) return;
-    if (!known.has(field)) {
-      const near = closestField(field);
+    const typed = key.trim();
+    if (i === 0 && typed.toLowerCase() === BLOCK_HEADER[0]) return;
+    const field = FIELD_BY_LOWER.get(typed.toLowerCase());
+    if (field === undefined) {
+      const near = closestFields(typed);
       const hint = near.length > 0 ? `; did you mean ${near.map((f) => `"${f}"`).join(', ')}?` : '';
-      throw problem(name, `row ${i + 1}: "${field}" is not a parameter name${hint} (DERATE.PARAMS("PC") shows a complete block)`);
+      throw problem(name, `row ${i + 1}: "${typed}" is not a parameter name${hint} (DERATE.PARAMS("PC") shows a complete block)`);
     }
     if (field in record) throw problem(name, `row ${i + 1}: the field "${field}" appears twice`);
     const value = row[1];
