@@ -14,7 +14,7 @@ export const BAND = defineMatrix({
 });
 
 /**
- * Spills one row: low, central and high relaxation modulus in MPa (from the family's Tg, Tm and modulus ranges) and the region name (glassy, transition, rubbery, flow, crystalline, melting).
+ * Spills one row: low, central and high relaxation modulus in MPa (from the family's Tg, Tm and modulus ranges) and the region name (glassy, transition, rubbery, flow, crystalline, melting). Screening estimate.
  * @customfunction BAND
  * @param material Family symbol such as "PBT", or a parameter block range from DERATE.PARAMS.
  * @param temperature Service temperature: a number in degC, or text with a unit such as "176 degF".

@@ -35,7 +35,7 @@ export const EQTIME = defineScalar({
 });
 
 /**
- * Equivalent time, in hours, at the reference temperature of a temperature history repeated a number of times: the sum of each duration divided by its shift factor (time-temperature superposition).
+ * Equivalent time, in hours, at the reference temperature of a temperature history repeated a number of times: the sum of each duration divided by its shift factor (time-temperature superposition). Screening estimate.
  * @customfunction EQTIME
  * @param material Family symbol such as "PBT", or a parameter block range from DERATE.PARAMS; the shift law depends on it.
  * @param temperatures Temperatures of the cycle's segments, degC (numbers, or text with units), in one row or column.

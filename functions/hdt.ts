@@ -16,7 +16,7 @@ export const HDT = defineScalar({
 });
 
 /**
- * Simulated heat deflection temperature, in degC: constant flexural stress, heating at 120 K/h until the strain has grown by 0.2 % (ISO 75 style). For comparing with datasheet HDT values, not design data.
+ * Simulated heat deflection temperature, in degC: constant flexural stress, heating at 120 K/h until the strain has grown by 0.2 % (ISO 75 style). Screening estimate to compare with datasheet HDT values; not design data.
  * @customfunction HDT
  * @param material Family symbol such as "PA66-dry", or a parameter block range from DERATE.PARAMS.
  * @param stress Flexural stress in MPa (or text with a unit), or the ISO 75 method letter "A" (1.80 MPa), "B" (0.45 MPa) or "C" (8.00 MPa).

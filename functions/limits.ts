@@ -27,7 +27,7 @@ export const MAXTEMP = defineScalar({
 });
 
 /**
- * Highest temperature, in degC, at which the relaxation modulus stays at or above the required modulus for the whole time. #N/A with a message when the answer lies outside -150 to 500 degC.
+ * Highest temperature, in degC, at which the relaxation modulus stays at or above the required modulus for the whole time. #N/A with a message outside -150 to 500 degC. Screening estimate.
  * @customfunction MAXTEMP
  * @param material Family symbol such as "POM", or a parameter block range from DERATE.PARAMS.
  * @param required_modulus Required stiffness: a number in MPa, or text with a unit such as "0.8 GPa".
@@ -54,7 +54,7 @@ export const MAXTIME = defineScalar({
 });
 
 /**
- * Longest time, in hours, for which the relaxation modulus stays at or above the required modulus at the temperature. #N/A with a message beyond 100 years or when never reached.
+ * Longest time, in hours, for which the relaxation modulus stays at or above the required modulus at the temperature. #N/A with a message beyond 100 years or when never reached. Screening estimate.
  * @customfunction MAXTIME
  * @param material Family symbol such as "PA66-cond", or a parameter block range from DERATE.PARAMS.
  * @param required_modulus Required stiffness: a number in MPa, or text with a unit such as "1.2 GPa".

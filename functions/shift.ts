@@ -11,7 +11,7 @@ export const SHIFT = defineScalar({
 });
 
 /**
- * log10 of the shift factor a_T at the temperature, relative to the material's Tg (WLF above Tg, Arrhenius below for the hybrid law). Negative above Tg: the clock runs faster.
+ * log10 of the shift factor a_T at the temperature, relative to the material's Tg (WLF above Tg, Arrhenius below for the hybrid law). Negative above Tg: the clock runs faster. Screening estimate.
  * @customfunction SHIFT
  * @param material Family symbol such as "PS", or a parameter block range from DERATE.PARAMS.
  * @param temperature Temperature: a number in degC, or text with a unit such as "392 K".
@@ -32,7 +32,7 @@ export const TGAT = defineScalar({
 });
 
 /**
- * Apparent glass transition temperature at a time scale, in degC: where the glass-transition relaxation time equals the time given. Longer loading moves it down.
+ * Apparent glass transition temperature at a time scale, in degC: where the glass-transition relaxation time equals the time given. Longer loading moves it down. Screening estimate.
  * @customfunction TGAT
  * @param material Family symbol such as "PC", or a parameter block range from DERATE.PARAMS.
  * @param time Time scale: a number in hours (h), or text with a unit such as "10 s" or "1000 h".

@@ -28,7 +28,7 @@ export const GRID = defineMatrix({
 });
 
 /**
- * Spills a derating table of relaxation moduli in MPa after the time: materials down, temperatures across (degC), with a header row and column.
+ * Spills a derating table of relaxation moduli in MPa after the time: materials down, temperatures across (degC), with a header row and column. Screening estimates.
  * @customfunction GRID
  * @param materials Family symbols such as "PC" and "PBT", in one row or column (DERATE.FAMILIES lists them).
  * @param temperatures Service temperatures, degC (numbers, or text with units), in one row or column.
@@ -65,7 +65,7 @@ export const CURVE = defineMatrix({
 });
 
 /**
- * Spills a curve for a chart: evenly spaced temperatures (degC) and the relaxation modulus (MPa) at each after the time, with a header row.
+ * Spills a curve for a chart: evenly spaced temperatures (degC) and the relaxation modulus (MPa) at each after the time, with a header row. Screening estimates.
  * @customfunction CURVE
  * @param material Family symbol such as "PP", or a parameter block range from DERATE.PARAMS.
  * @param from_temperature First temperature of the curve, degC (or text with a unit).

@@ -42,6 +42,9 @@ describe('functions metadata', () => {
   it('describes every function and every argument, with the unit of each argument', () => {
     for (const f of metadata) {
       expect(f.description?.length ?? 0, f.id).toBeGreaterThan(40);
+      // Our rule: short enough for the function tooltip; every answer carries the screening caution.
+      expect(f.description?.length ?? 0, f.id).toBeLessThanOrEqual(255);
+      if (f.id !== 'FAMILIES' && f.id !== 'PARAMS') expect(f.description, `${f.id} caution`).toMatch(/[Ss]creening estimate/);
       const def = defs.find((d) => d.id === f.id);
       if (!def) throw new Error(`no definition for ${f.id}`);
       expect(

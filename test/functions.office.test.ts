@@ -99,3 +99,18 @@ describe('Office host', () => {
     expect(e.message).toBeUndefined();
   });
 });
+
+describe('the built bundle dist/functions.js', () => {
+  it('associates every function id of dist/functions.json when CustomFunctions exists, and nothing otherwise', async () => {
+    const { existsSync, readFileSync } = await import('node:fs');
+    const vm = await import('node:vm');
+    if (!existsSync('dist/functions.js')) throw new Error('dist/functions.js is missing: run npm run build first (npm test does)');
+    const code = readFileSync('dist/functions.js', 'utf8');
+    const metadata = JSON.parse(readFileSync('dist/functions.json', 'utf8')) as { functions: { id: string }[] };
+    const rt = fakeRuntime();
+    vm.runInNewContext(code, { CustomFunctions: rt });
+    expect([...rt.table.keys()].sort()).toEqual(metadata.functions.map((f) => f.id).sort());
+    expect(typeof rt.table.get('MODULUS')?.([['PC']], 80, 1000)).toBe('number');
+    expect(() => vm.runInNewContext(code, {})).not.toThrow();
+  });
+});
