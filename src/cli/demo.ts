@@ -1,4 +1,7 @@
-/** Prints the demo derating review of the invented scenario to the terminal. */
+/**
+ * The demo derating review of the invented scenario: computed once by the engine, then printed to the
+ * terminal and written as a workbook of DERATE.* formulas with those values cached (workbook.ts).
+ */
 import {
   cToKelvin,
   deratingTable,
@@ -9,59 +12,106 @@ import {
   parseTimeS,
   resolveMaterial,
   SECONDS_PER_HOUR,
+  type InverseStatus,
+  type Region,
+  type TableRow,
 } from '../index.js';
 import { markdownTable, sig } from './format.js';
 import type { Out } from './main.js';
 import { DEMO_SCENARIO as S } from './scenario.js';
 
+export const DEMO_CAUTION =
+  'Screening estimates only. Real grades differ with filler, fibre orientation, moisture, ageing, chemicals, processing and stress level (the model is linear viscoelastic, small strain). Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code; for parts whose failure can hurt someone, defer to local codes and licensed engineering review.';
+
+/** One candidate's duty-cycle check. */
+export interface DutyCheck {
+  readonly id: string;
+  /** Equivalent time at the peak cycle temperature, hours. */
+  readonly equivalentH: number;
+  /** Modulus after the repeated cycle, read at the peak temperature, MPa. */
+  readonly afterMPa: number;
+  readonly region: Region;
+  /** Stress held at the scenario's strain after the cycle, MPa. */
+  readonly heldStressMPa: number;
+  /** Highest constant temperature keeping the required modulus over the service time, degC (null: see status). */
+  readonly limitC: number | null;
+  readonly limitStatus: InverseStatus;
+  readonly pass: boolean;
+}
+
+/** Everything the review shows, in engine units converted for display. */
+export interface DemoReview {
+  readonly serviceS: number;
+  readonly peakC: number;
+  readonly rows: readonly TableRow[];
+  readonly checks: readonly DutyCheck[];
+}
+
+/** Computes the review of the invented scenario with the engine. */
+export function computeDemo(): DemoReview {
+  const serviceS = parseTimeS(S.serviceTime, 'serviceTime');
+  const rows = deratingTable(S.candidates, S.temperaturesC, serviceS);
+  const segments = S.cycle.map(([T, h]) => ({ TK: cToKelvin(T), dtS: h * SECONDS_PER_HOUR }));
+  const peakC = Math.max(...S.cycle.map(([T]) => T));
+  const checks = S.candidates.map((id): DutyCheck => {
+    const m = resolveMaterial(id);
+    const after = modulusAfterHistory(m, segments, S.cycles, cToKelvin(peakC));
+    const limit = maxTemperatureK(m, S.requiredModulusMPa, serviceS);
+    return {
+      id,
+      equivalentH: equivalentTimeS(m, segments, cToKelvin(peakC), S.cycles) / SECONDS_PER_HOUR,
+      afterMPa: after.modulusMPa,
+      region: after.region,
+      heldStressMPa: after.modulusMPa * S.heldStrain,
+      limitC: limit.value === null ? null : kelvinToC(limit.value),
+      limitStatus: limit.status,
+      pass: after.modulusMPa >= S.requiredModulusMPa,
+    };
+  });
+  return { serviceS, peakC, rows, checks };
+}
+
 /** Writes the scenario, the derating table, the duty-cycle check and the cautions. */
-export function runDemo(out: Out): void {
-  const tS = parseTimeS(S.serviceTime, 'serviceTime');
+export function printDemo(review: DemoReview, out: Out): void {
   out.write(`# ${S.title}\n\n${S.story}\n\n`);
-  const rows = deratingTable(S.candidates, S.temperaturesC, tS);
   out.write(`## Relaxation modulus after ${S.serviceTime} at constant temperature, MPa (ratio to 23 degC / 1 h)\n\n`);
   out.write(
     markdownTable(
       ['resin', ...S.temperaturesC.map((t) => `${t} degC`)],
-      rows.map((r) => [r.id, ...r.cells.map((c) => `${sig(c.modulusMPa)} (${c.ratio.toFixed(2)})`)]),
+      review.rows.map((r) => [r.id, ...r.cells.map((c) => `${sig(c.modulusMPa)} (${c.ratio.toFixed(2)})`)]),
     ),
   );
-  const segments = S.cycle.map(([T, h]) => ({ TK: cToKelvin(T), dtS: h * SECONDS_PER_HOUR }));
-  const peak = Math.max(...S.cycle.map(([T]) => T));
   out.write(
     `\n## Daily cycle ${S.cycle.map(([T, h]) => `${h} h at ${T} degC`).join(' + ')}, ${S.cycles} days; required ${S.requiredModulusMPa} MPa\n\n`,
   );
-  const checks = S.candidates.map((id) => {
-    const m = resolveMaterial(id);
-    const teq = equivalentTimeS(m, segments, cToKelvin(peak), S.cycles);
-    const after = modulusAfterHistory(m, segments, S.cycles, cToKelvin(peak));
-    const limit = maxTemperatureK(m, S.requiredModulusMPa, tS);
-    const limitText = limit.value === null ? (limit.status === 'above-throughout' ? '> 500' : 'none') : sig(kelvinToC(limit.value), 3);
-    return [
-      id,
-      sig(teq / SECONDS_PER_HOUR, 3),
-      sig(after.modulusMPa),
-      after.region,
-      sig(after.modulusMPa * S.heldStrain),
-      limitText,
-      after.modulusMPa >= S.requiredModulusMPa ? 'pass' : 'FAIL',
-    ];
-  });
   out.write(
     markdownTable(
       [
         'resin',
-        `equivalent h at ${peak} degC`,
+        `equivalent h at ${review.peakC} degC`,
         'modulus at end, MPa',
         'region',
         `stress held at ${S.heldStrain * 100} % strain, MPa`,
         `max degC for ${S.requiredModulusMPa} MPa over ${S.serviceTime}`,
         'verdict',
       ],
-      checks,
+      review.checks.map((c) => [
+        c.id,
+        sig(c.equivalentH, 3),
+        sig(c.afterMPa),
+        c.region,
+        sig(c.heldStressMPa),
+        c.limitC === null ? (c.limitStatus === 'above-throughout' ? '> 500' : 'none') : sig(c.limitC, 3),
+        c.pass ? 'pass' : 'FAIL',
+      ]),
     ),
   );
-  out.write(
-    '\nScreening estimates only. Real grades differ with filler, fibre orientation, moisture, ageing, chemicals, processing and stress level (the model is linear viscoelastic, small strain). Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code; for parts whose failure can hurt someone, defer to local codes and licensed engineering review.\n',
-  );
+  out.write(`\n${DEMO_CAUTION}\n`);
+}
+
+/** Prints the review (the CLI `demo` command also writes the workbook; see main.ts). */
+export function runDemo(out: Out): DemoReview {
+  const review = computeDemo();
+  printDemo(review, out);
+  return review;
 }

@@ -32,6 +32,7 @@ import {
 } from '../index.js';
 import { csvTable, markdownTable, sig } from './format.js';
 import { runDemo } from './demo.js';
+import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
 
 export interface Out {
   write(text: string): unknown;
@@ -44,7 +45,7 @@ interface Command {
   readonly summary: string;
   readonly usage: string;
   readonly options: Options;
-  run(v: Values, out: Out): void;
+  run(v: Values, out: Out): void | Promise<void>;
 }
 
 const CAUTION =
@@ -322,11 +323,13 @@ const COMMANDS: Record<string, Command> = {
     },
   },
   demo: {
-    summary: 'run the bundled demo scenario (invented) and print its derating review',
-    usage: 'resin-derate demo',
-    options: {},
-    run(_v, out) {
-      runDemo(out);
+    summary: 'run the bundled demo scenario (invented): print its derating review and write it as a workbook of DERATE formulas',
+    usage: `resin-derate demo [--workbook ${DEMO_WORKBOOK_PATH}]`,
+    options: { workbook: { type: 'string' } },
+    async run(v, out) {
+      const review = runDemo(out);
+      const path = await writeDemoWorkbook(review, typeof v['workbook'] === 'string' ? v['workbook'] : DEMO_WORKBOOK_PATH);
+      out.write(`\nWrote ${path} (DERATE.* formulas with the values above cached; open it in Excel with the Resin Derate add-in).\n`);
     },
   },
 };
@@ -359,7 +362,7 @@ export async function main(argv: readonly string[], out: Out, err: Out): Promise
       out.write(`${command.summary}\n\nUsage: ${command.usage}\n`);
       return 0;
     }
-    command.run(values as Values, out);
+    await command.run(values as Values, out);
     return 0;
   } catch (e) {
     err.write(`resin-derate ${name}: ${describeError(e).replace(/\s*\n\s*/g, ' ')}\n`);

@@ -1,0 +1,116 @@
+/**
+ * The Office host with a stand-in for the custom-functions runtime (Office.js cannot load outside
+ * Office): every definition is associated under its id, errors become CustomFunctions.Error objects
+ * (thrown for a scalar result, in place inside a spill), and Excel's own error objects are read as input.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { FunctionDef } from '../functions/core/define.js';
+import { registerWithOffice, type CustomFunctionsRuntime } from '../functions/host/office.js';
+import { loadFunctions } from './support/functions.js';
+
+class FakeError {
+  constructor(
+    readonly code: string,
+    readonly message?: string,
+  ) {}
+}
+
+function fakeRuntime(): CustomFunctionsRuntime & { table: Map<string, (...a: unknown[]) => unknown> } {
+  const table = new Map<string, (...a: unknown[]) => unknown>();
+  return {
+    table,
+    associate: (id, fn) => table.set(id, fn),
+    Error: FakeError,
+    ErrorCode: { invalidValue: '#VALUE!', notAvailable: '#N/A', invalidNumber: '#NUM!' },
+  };
+}
+
+let defs: readonly FunctionDef[] = [];
+beforeAll(async () => {
+  defs = (await loadFunctions()).defs;
+});
+
+describe('Office host', () => {
+  it('associates nothing when the runtime is absent', () => {
+    expect(registerWithOffice(undefined)).toBe(0);
+  });
+
+  it('associates every definition under its worksheet id', () => {
+    const rt = fakeRuntime();
+    expect(registerWithOffice(rt)).toBe(defs.length);
+    expect([...rt.table.keys()].sort()).toEqual(defs.map((d) => d.id).sort());
+  });
+
+  it('returns numbers, throws a scalar error with its message, and puts spill errors in place', () => {
+    const rt = fakeRuntime();
+    registerWithOffice(rt);
+    const modulus = rt.table.get('MODULUS');
+    const grid = rt.table.get('GRID');
+    const band = rt.table.get('BAND');
+    if (!modulus || !grid || !band) throw new Error('not associated');
+    expect(typeof modulus([['PC']], 80, '1000 h')).toBe('number');
+    let thrown: unknown;
+    try {
+      modulus([['PX']], 80, 1000);
+    } catch (e) {
+      thrown = e;
+    }
+    expect(thrown).toBeInstanceOf(FakeError);
+    expect(thrown).toMatchObject({ code: '#N/A' });
+    expect((thrown as FakeError).message).toContain('unknown family "PX"');
+    expect(() => modulus([['PC']], true, 1000)).toThrow(FakeError);
+    const table = grid([['PC'], ['PBT']], [[23, 80]], 1000) as unknown[][];
+    expect(table[0]).toEqual(['E_r MPa', 23, 80]);
+    expect(table.flat().some((c) => c instanceof FakeError)).toBe(false);
+    const row = band([['PC']], 80, 1000) as unknown[][];
+    expect(row[0]?.length).toBe(4);
+    // An empty slot of a spill goes out as empty text (PARAMS leaves unused fields empty).
+    const block = rt.table.get('PARAMS')?.('PC') as unknown[][];
+    expect(block.some((r) => r[1] === '')).toBe(true);
+    expect(block.flat().some((c) => c === null)).toBe(false);
+  });
+
+  it('reads Excel error objects in ranges and keeps #N/A', () => {
+    const rt = fakeRuntime();
+    registerWithOffice(rt);
+    const eqtime = rt.table.get('EQTIME');
+    let thrown: unknown;
+    try {
+      eqtime?.([['PBT']], [[70], [new FakeError('#N/A', 'lookup failed')]], [[8], [16]]);
+    } catch (e) {
+      thrown = e;
+    }
+    expect(thrown).toMatchObject({ code: '#N/A' });
+    expect((thrown as FakeError).message).toContain('temperatures: cell 2: received the error #N/A (lookup failed)');
+    try {
+      eqtime?.([['PBT']], [[70], [{ code: '#DIV/0!' }]], [[8], [16]]);
+    } catch (e) {
+      thrown = e;
+    }
+    expect(thrown).toMatchObject({ code: '#VALUE!' });
+    expect((thrown as FakeError).message).toContain('#DIV/0!');
+  });
+
+  it('sends #NUM! without a message (Excel shows messages only on #VALUE! and #N/A)', async () => {
+    const { toOfficeError } = await import('../functions/host/office.js');
+    const { SheetError } = await import('../functions/core/cells.js');
+    const e = toOfficeError(fakeRuntime(), new SheetError('#NUM!', 'overflow')) as FakeError;
+    expect(e.code).toBe('#NUM!');
+    expect(e.message).toBeUndefined();
+  });
+});
+
+describe('the built bundle dist/functions.js', () => {
+  it('associates every function id of dist/functions.json when CustomFunctions exists, and nothing otherwise', async () => {
+    const { existsSync, readFileSync } = await import('node:fs');
+    const vm = await import('node:vm');
+    if (!existsSync('dist/functions.js')) throw new Error('dist/functions.js is missing: run npm run build first (npm test does)');
+    const code = readFileSync('dist/functions.js', 'utf8');
+    const metadata = JSON.parse(readFileSync('dist/functions.json', 'utf8')) as { functions: { id: string }[] };
+    const rt = fakeRuntime();
+    vm.runInNewContext(code, { CustomFunctions: rt });
+    expect([...rt.table.keys()].sort()).toEqual(metadata.functions.map((f) => f.id).sort());
+    expect(typeof rt.table.get('MODULUS')?.([['PC']], 80, 1000)).toBe('number');
+    expect(() => vm.runInNewContext(code, {})).not.toThrow();
+  });
+});
