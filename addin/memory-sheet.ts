@@ -62,6 +62,10 @@ export class MemoryWorkbook implements SheetPort {
     return this.active.sheet;
   }
 
+  get activeBox(): Box {
+    return this.active.box;
+  }
+
   select(sheet: string, box: Box): void {
     this.sheet(sheet);
     this.active = { sheet, box };
@@ -85,7 +89,7 @@ export class MemoryWorkbook implements SheetPort {
     this.changed();
   }
 
-  /** Rows and columns in use (for drawing), at least the given minimum. */
+  /** Rows and columns in use by cells (charts are drawn apart in the preview). */
   extent(sheet: string): { rows: number; cols: number } {
     let rows = 0;
     let cols = 0;
@@ -93,10 +97,6 @@ export class MemoryWorkbook implements SheetPort {
       const [r, c] = k.split(',').map(Number);
       rows = Math.max(rows, (r ?? 0) + 1);
       cols = Math.max(cols, (c ?? 0) + 1);
-    }
-    for (const ch of this.sheet(sheet).charts) {
-      rows = Math.max(rows, ch.place.bottom + 1);
-      cols = Math.max(cols, ch.place.right + 1);
     }
     return { rows, cols };
   }
