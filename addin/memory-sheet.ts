@@ -145,7 +145,7 @@ export class MemoryWorkbook implements SheetPort {
     if (topLeft.row + rows > MAX_ROWS || topLeft.col + cols > MAX_COLS) throw new Error('the block does not fit on the sheet');
     this.maybeFail('write');
     const box = { top: topLeft.row, left: topLeft.col, bottom: topLeft.row + rows - 1, right: topLeft.col + cols - 1 };
-    const previousFormats = cells.map((r) => Array.from({ length: cols }, () => 'General'));
+    const previousFormats = cells.map(() => Array.from({ length: cols }, () => 'General'));
     cells.forEach((row, r) => {
       for (let c = 0; c < cols; c++) {
         const w = row[c];

@@ -32,7 +32,7 @@ export interface FakeChart {
 
 export interface FakeSheet {
   name: string;
-  cells: Map<string, { value: Value; formula: string; format: string }>;
+  cells: Map<string, { value: Value; formula: Value; format: string }>;
   charts: FakeChart[];
 }
 
@@ -57,14 +57,14 @@ export class FakeExcel {
   }
 
   /** Cell content for the tests: formula (or constant) and format. */
-  at(sheet: string, address: string): { value: Value; formula: string; format: string } | undefined {
+  at(sheet: string, address: string): { value: Value; formula: Value; format: string } | undefined {
     const c = parseRef(address).box;
     return this.sheet(sheet).cells.get(k(c.top, c.left));
   }
 
   put(sheet: string, address: string, value: Value): void {
     const c = parseRef(address).box;
-    this.sheet(sheet).cells.set(k(c.top, c.left), { value, formula: String(value), format: 'General' });
+    this.sheet(sheet).cells.set(k(c.top, c.left), { value, formula: value, format: 'General' });
   }
 
   /** The runner to hand to OfficeSheet: a fresh context per batch, like Excel.run. */
@@ -207,7 +207,7 @@ class FakeRange extends Loadable {
         this.markLoaded(list);
         return;
       }
-      const rows = (f: (c: { value: Value; formula: string; format: string } | undefined) => Value): Value[][] => {
+      const rows = (f: (c: { value: Value; formula: Value; format: string } | undefined) => Value): Value[][] => {
         const out: Value[][] = [];
         for (let r = this.box.top; r <= this.box.bottom; r++) {
           const row: Value[] = [];
@@ -249,9 +249,10 @@ class FakeRange extends Loadable {
           else sheet.cells.set(k(r, c), { value: '', formula: '', format });
           return;
         }
-        // The fake does not evaluate formulas; it stores their text as the value too.
+        // The fake does not evaluate formulas; it stores their text as the value too. A leading
+        // apostrophe marks text and is not part of the value (Excel reads back formulas without it too).
         const text = typeof v === 'string' && v.startsWith("'") ? v.slice(1) : v;
-        sheet.cells.set(k(r, c), { value: text, formula: String(v), format });
+        sheet.cells.set(k(r, c), { value: text, formula: text, format });
       });
     });
   }
@@ -264,8 +265,9 @@ class FakeRange extends Loadable {
       const sheet = this.ctx.excel.sheet(this.sheetName);
       this.each(m, (r, c, f) => {
         const old = sheet.cells.get(k(r, c));
-        if (!old && f === 'General') return;
-        sheet.cells.set(k(r, c), { value: old?.value ?? '', formula: old?.formula ?? '', format: String(f) });
+        const value = old?.value ?? '';
+        if (value === '' && f === 'General') sheet.cells.delete(k(r, c));
+        else sheet.cells.set(k(r, c), { value, formula: old?.formula ?? '', format: String(f) });
       });
     });
   }
