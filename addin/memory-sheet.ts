@@ -192,6 +192,10 @@ export class MemoryWorkbook implements SheetPort {
     this.changed();
   }
 
+  async watchSelection(listener: () => void): Promise<void> {
+    this.onChange(listener);
+  }
+
   async sheetInUse(name: string): Promise<boolean> {
     const s = this.sheet(name);
     return s.cells.size > 0 || s.charts.length > 0;

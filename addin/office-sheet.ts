@@ -177,6 +177,13 @@ export class OfficeSheet implements SheetPort {
     }
   }
 
+  watchSelection(listener: () => void): Promise<void> {
+    return this.run(async (ctx) => {
+      ctx.workbook.onSelectionChanged.add(async () => listener());
+      await ctx.sync();
+    });
+  }
+
   removeChart(sheet: string, name: string): Promise<void> {
     return this.run(async (ctx) => {
       const chart = ctx.workbook.worksheets.getItem(sheet).charts.getItemOrNullObject(name);

@@ -77,6 +77,8 @@ export interface SheetPort {
   sheetInUse(name: string): Promise<boolean>;
   addChart(spec: ChartSpec): Promise<void>;
   removeChart(sheet: string, name: string): Promise<void>;
+  /** Calls the listener whenever the user selects other cells. */
+  watchSelection(listener: () => void): Promise<void>;
 }
 
 /** True where a cell read back holds nothing. */

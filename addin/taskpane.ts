@@ -57,6 +57,7 @@ async function pickPort(): Promise<{ port: SheetPort; note: string }> {
     if (info.host === Office.HostType.Excel) return { port: new OfficeSheet(), note: 'Connected to Excel' };
     return { port: new MemoryWorkbook(), note: `This host (${String(info.host)}) is not Excel: using the in-page sheet` };
   }
+  if (window.__resinDerateHost === 'office') return { port: new MemoryWorkbook(), note: 'Office.js did not load: using the in-page sheet' };
   return { port: new MemoryWorkbook(), note: 'Preview: an in-page sheet stands in for Excel' };
 }
 
@@ -67,9 +68,6 @@ async function start(): Promise<void> {
     view = new MemoryView(port);
     view.mount();
     window.resinDeratePreview = { workbook: port, view };
-    port.onChange(() => {
-      if (state.targetFollowsSelection) void refreshTarget();
-    });
   }
   state = {
     port,
@@ -93,6 +91,11 @@ async function start(): Promise<void> {
   setUpFamilies();
   setUpReview();
   byId('undo').addEventListener('click', () => void undoLast());
+  try {
+    await port.watchSelection(() => void refreshTarget());
+  } catch {
+    // Hosts without selection events: the "Selected cell" button still reads the selection.
+  }
   await refreshTarget();
   document.body.dataset.ready = 'true';
 }

@@ -35,6 +35,17 @@ describe('Office adapter', () => {
     expect(excel.calls).toEqual(['run', 'selection.load(address)', 'sync']);
   });
 
+  it('reports selection changes through the workbook event', async () => {
+    const { excel, port } = setup();
+    let seen = 0;
+    await port.watchSelection(() => seen++);
+    expect(excel.calls).toContain('workbook.onSelectionChanged.add()');
+    await excel.select('Sheet1!B2');
+    await excel.select('Sheet1!C3');
+    expect(seen).toBe(2);
+    await expect(port.selection()).resolves.toMatchObject({ box: { top: 2, left: 2 } });
+  });
+
   it('reads values and formulas only after a sync', async () => {
     const { excel, port } = setup();
     excel.put('Sheet1', 'B2', 7);

@@ -43,6 +43,12 @@ export class FakeExcel {
   readonly sheets: FakeSheet[] = [];
   selection = 'Sheet1!A1';
   syncs = 0;
+  readonly selectionHandlers: (() => Promise<void>)[] = [];
+  /** What the user does in Excel: select other cells, and Excel raises the event. */
+  async select(address: string): Promise<void> {
+    this.selection = address;
+    for (const h of this.selectionHandlers) await h();
+  }
   /** Makes the named operation (as recorded, without arguments, e.g. 'series.setXAxisValues') throw during sync. */
   failOn: string | null = null;
 
@@ -114,8 +120,13 @@ class Loadable {
 
 class FakeWorkbook {
   readonly worksheets: FakeWorksheets;
+  readonly onSelectionChanged: { add(handler: () => Promise<void>): void };
   constructor(private readonly ctx: FakeContext) {
     this.worksheets = new FakeWorksheets(ctx);
+    this.onSelectionChanged = {
+      add: (handler) =>
+        ctx.record('onSelectionChanged.add', 'workbook.onSelectionChanged.add()', () => ctx.excel.selectionHandlers.push(handler)),
+    };
   }
   getSelectedRange(): FakeRange {
     const ref = parseRef(this.ctx.excel.selection);

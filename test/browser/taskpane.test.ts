@@ -270,6 +270,27 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.setViewportSize({ width: 1200, height: 900 });
   });
 
+  it('fetches Office.js only when Excel opened the page, and falls back to the in-page sheet when it cannot load', async () => {
+    const officeJs = 'https://appsforoffice.microsoft.com/lib/1/hosted/office.js';
+    const context = await browser.newContext({ viewport: { width: 400, height: 700 } });
+    const attempts: string[] = [];
+    await context.route('**/*', async (route) => {
+      const url = new URL(route.request().url());
+      if (url.hostname === 'localhost' || url.hostname === '127.0.0.1') await route.continue();
+      else {
+        attempts.push(url.href);
+        await route.abort('blockedbyclient');
+      }
+    });
+    const hosted = await context.newPage();
+    await hosted.goto(`${preview.url}taskpane.html?_host_Info=Excel$Win32$16.01$en-US$$$$0`);
+    await hosted.waitForSelector('body[data-ready=true]', { timeout: 10_000 });
+    await expect(hosted.textContent('#host-note')).resolves.toMatch(/Office.js did not load/);
+    await context.close();
+    // Blocked like everything else; this page is not counted with the main page's requests below.
+    expect(attempts).toEqual([officeJs]);
+  });
+
   it('made no request outside localhost', () => {
     expect(outside).toEqual([]);
   });
