@@ -1,6 +1,6 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
-import { FAMILIES, NUMERIC_FIELDS, paramsToRecord, type Family, type NumericField } from '../src/index.js';
-import { qualified, type Cell } from './a1.js';
+import { FAMILIES, KINDS, NUMERIC_FIELDS, paramsToRecord, SHIFT_LAWS, TEXT_FIELDS, type Family, type NumericField } from '../src/index.js';
+import type { Cell } from './a1.js';
 import type { CellWrite } from './port.js';
 import type { Plan } from './writer.js';
 
@@ -56,29 +56,54 @@ export function searchFamilies(query: string): Family[] {
   });
 }
 
-/** Field/value rows of a family, the block =DERATE.PARAMS(id) spills and every material argument accepts. */
-export function parameterRows(f: Family): [string, string | number][] {
-  return Object.entries(paramsToRecord(f.params)).map(([k, v]) => [k, v ?? '']);
+/**
+ * The block of a family as =DERATE.PARAMS(id) spills it (the layout of functions/core/block.ts on the
+ * functions branch): a header row, then field, value, unit and description per field, with the fields
+ * the kind does not use left empty. Every material argument reads it back (header optional, field names
+ * in the first column, values in the second, further columns ignored).
+ */
+export const BLOCK_HEADER = ['field', 'value', 'unit', 'description'] as const;
+
+const TEXT_FIELD_INFO: Record<(typeof TEXT_FIELDS)[number], { unit: string; description: string }> = {
+  id: { unit: 'text', description: 'short name of the material, shown in results' },
+  name: { unit: 'text', description: 'full name of the material' },
+  kind: { unit: 'text', description: `one of ${KINDS.join(', ')}` },
+  shiftLaw: { unit: 'text', description: `time-temperature shift law: ${SHIFT_LAWS.join(', ')} (hybrid = Arrhenius below Tg, WLF above)` },
+};
+
+export type BlockRow = [string, string | number, string, string];
+
+export function parameterRows(f: Family): BlockRow[] {
+  const p = f.params;
+  const record = paramsToRecord(p);
+  const rows: BlockRow[] = TEXT_FIELDS.map((k) => [k, record[k] ?? '', TEXT_FIELD_INFO[k].unit, TEXT_FIELD_INFO[k].description]);
+  for (const spec of NUMERIC_FIELDS) {
+    const used = spec.kinds.includes(p.kind);
+    rows.push([
+      spec.key,
+      used ? (record[spec.key] ?? '') : '',
+      spec.unit,
+      used ? spec.description : `${spec.description} (not used by a ${p.kind} material; leave empty)`,
+    ]);
+  }
+  return rows;
 }
 
-/** Units of the numeric fields, for the pane's hint beside the block. */
-export const FIELD_UNITS: ReadonlyMap<string, string> = new Map(NUMERIC_FIELDS.map((s) => [s.key, s.unit]));
+/** The whole block, header first, as written into the sheet. */
+export function blockRows(f: Family): (string | number)[][] {
+  return [[...BLOCK_HEADER], ...parameterRows(f)];
+}
 
 export function familyBlockPlan(f: Family): Plan {
-  const rows = parameterRows(f);
+  const rows = blockRows(f);
   return {
     label: `${f.params.id} parameters`,
     sheetBase: `${f.params.id} parameters`.slice(0, 25),
     rows: rows.length,
-    cols: 2,
+    cols: BLOCK_HEADER.length,
     build: (_sheet: string, _topLeft: Cell) => ({
-      cells: rows.map(([k, v]): CellWrite[] => [{ value: k }, { value: v }]),
+      cells: rows.map((r): CellWrite[] => r.map((value) => ({ value }))),
       chart: null,
     }),
   };
-}
-
-/** The reference a formula uses for a block written at topLeft. */
-export function blockReference(sheet: string, topLeft: Cell, rows: number): string {
-  return qualified(sheet, { top: topLeft.row, left: topLeft.col, bottom: topLeft.row + rows - 1, right: topLeft.col + 1 });
 }

@@ -5,6 +5,7 @@
  * functions make.
  */
 import {
+  ALL_KEYS,
   compileMaterial,
   cToKelvin,
   equivalentTimeS,
@@ -93,17 +94,33 @@ export function checkCycle(steps: readonly CycleStep[], cycles: number): void {
   if (!(cycles >= 1) || !Number.isFinite(cycles)) throw new InputError('cycles', `must be a number of at least 1, got ${cycles}`);
 }
 
-/** Turns a 2-column field/value block read from the sheet into parameters; errors name the range. */
+const FIELD_BY_LOWER = new Map<string, string>(ALL_KEYS.map((k) => [k.toLowerCase(), k]));
+
+/**
+ * Turns a parameter block read from the sheet into parameters, reading it as the material arguments
+ * do: an optional 'field' header row, field names (any case) in the first column, values in the second,
+ * further columns ignored. Errors name the range.
+ */
 export function paramsFromBlock(content: RangeContent, where: string): MaterialParams {
   const first = content.values[0];
-  if (!first || first.length < 2) throw new InputError(where, 'a parameter block has two columns: field names and values');
-  const record: Record<string, CellValue> = {};
-  for (const row of content.values) {
-    const [k, v] = row;
-    if (isBlank(k)) continue;
-    if (typeof k !== 'string') throw new InputError(where, `the first column holds field names; found ${String(k)}`);
-    record[k.trim()] = v === undefined ? '' : v;
+  if (!first || first.length < 2 || content.values.length < 2) {
+    throw new InputError(where, 'a parameter block has at least two columns (field names, values) and several rows');
   }
+  const record: Record<string, CellValue> = {};
+  content.values.forEach((row, i) => {
+    const [k, v] = row;
+    if (isBlank(k)) {
+      if (row.slice(1).some((c) => !isBlank(c))) throw new InputError(where, `row ${i + 1} has a value but no field name`);
+      return;
+    }
+    if (typeof k !== 'string') throw new InputError(where, `row ${i + 1}: the first column holds field names, found ${String(k)}`);
+    const typed = k.trim();
+    if (i === 0 && typed.toLowerCase() === 'field') return;
+    const field = FIELD_BY_LOWER.get(typed.toLowerCase());
+    if (field === undefined) throw new InputError(where, `row ${i + 1}: '${typed}' is not a parameter name`);
+    if (field in record) throw new InputError(where, `row ${i + 1}: the field '${field}' appears twice`);
+    record[field] = v === undefined ? '' : v;
+  });
   try {
     const p = paramsFromRecord(record);
     compileMaterial(p);

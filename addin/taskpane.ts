@@ -298,6 +298,7 @@ async function writeFamily(id: string): Promise<void> {
     const f = getFamily(id);
     const plan = familyBlockPlan(f);
     const { sheet, topLeft } = await selectionTopLeft();
+    byId('status').replaceChildren();
     const record = await safeWrite(plan, sheet, topLeft);
     if (!record) return;
     const ref = qualified(record.receipt.sheet, record.receipt.box);
@@ -555,6 +556,7 @@ async function writeReview(): Promise<void> {
     const plan = reviewPlan(input);
     const target = await resolveRange(byId<HTMLInputElement>('target').value, 'target');
     markInvalid(null);
+    byId('status').replaceChildren();
     const record = await safeWrite(plan, target.sheet, { row: target.box.top, col: target.box.left });
     if (!record) return;
     renderSummary(input);

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../src/index.js';
-import { familyBlockPlan, parameterRows } from '../addin/families-job.js';
+import { blockRows, familyBlockPlan } from '../addin/families-job.js';
 import { OfficeSheet } from '../addin/office-sheet.js';
 import { MODULUS_NUMBER_FORMAT } from '../addin/port.js';
 import { reviewPlan, type ReviewInput } from '../addin/review.js';
@@ -141,9 +141,12 @@ describe('Office adapter', () => {
     const { excel, port } = setup();
     const f = getFamily('PA66-cond');
     await commit(port, familyBlockPlan(f), { sheet: 'Sheet1', topLeft: { row: 0, col: 5 } });
-    const rows = parameterRows(f);
-    expect(excel.at('Sheet1', 'F1')?.value).toBe('id');
-    expect(excel.at('Sheet1', 'G1')?.value).toBe('PA66-cond');
+    const rows = blockRows(f);
+    expect(excel.at('Sheet1', 'F1')?.value).toBe('field');
+    expect(excel.at('Sheet1', 'F2')?.value).toBe('id');
+    expect(excel.at('Sheet1', 'G2')?.value).toBe('PA66-cond');
+    expect(excel.at('Sheet1', 'H6')?.value).toBe('degC');
     expect(excel.at('Sheet1', `F${rows.length}`)?.value).toBe(rows[rows.length - 1]?.[0]);
+    expect(excel.at('Sheet1', `F${rows.length + 1}`)).toBeUndefined();
   });
 });

@@ -1,8 +1,19 @@
 /** The pane's plans: family blocks, review formulas and the numbers shown beside them. */
 import { describe, expect, it } from 'vitest';
-import { compileMaterial, cToKelvin, FAMILIES, getFamily, InputError, modulusMPa, paramsFromRecord, parseTimeS } from '../src/index.js';
+import {
+  ALL_KEYS,
+  compileMaterial,
+  cToKelvin,
+  FAMILIES,
+  getFamily,
+  InputError,
+  modulusMPa,
+  NUMERIC_FIELDS,
+  parseTimeS,
+  TEXT_FIELDS,
+} from '../src/index.js';
 import { boxAddress, columnName, parseCell, parseRef, qualified, quoteSheet } from '../addin/a1.js';
-import { familyBlockPlan, parameterRows, searchFamilies, summarize } from '../addin/families-job.js';
+import { blockRows, familyBlockPlan, parameterRows, searchFamilies, summarize } from '../addin/families-job.js';
 import { formatModulus } from '../addin/port.js';
 import {
   logAxisMinimum,
@@ -49,15 +60,35 @@ describe('families job', () => {
     expect(pc.quantities[0]?.source).toMatch(/Polymer Handbook/);
     expect(pc.quantities[2]?.source).toMatch(/common practice/);
   });
-  it('writes every field of the record, and the block reads back to the same parameters', () => {
+  it('writes the block PARAMS spills (header, field, value, unit, description), and it reads back to the same material', () => {
     for (const f of FAMILIES) {
-      const rows = parameterRows(f);
-      const record = Object.fromEntries(rows);
-      expect(paramsFromRecord(record)).toEqual({ ...f.params });
+      const block = blockRows(f);
+      expect(block[0]).toEqual(['field', 'value', 'unit', 'description']);
+      expect(block.slice(1).map((r) => r[0])).toEqual(ALL_KEYS);
       const cells = familyBlockPlan(f).build('Sheet1', { row: 0, col: 0 }).cells;
-      expect(cells.map((r) => r.map((c) => c.value))).toEqual(rows);
-      expect(paramsFromBlock({ values: rows, formulas: rows }, 'Sheet1!A1:B29')).toEqual({ ...f.params });
+      expect(cells.map((r) => r.map((c) => c.value))).toEqual(block);
+      const back = paramsFromBlock({ values: block, formulas: block }, 'Sheet1!A1:D30');
+      // Fields the kind does not use are written empty; everything the model reads comes back unchanged.
+      for (const spec of NUMERIC_FIELDS.filter((s) => s.kinds.includes(f.params.kind)))
+        expect(back[spec.key], spec.key).toBe(f.params[spec.key]);
+      for (const key of TEXT_FIELDS) expect(back[key]).toBe(f.params[key]);
+      const m0 = compileMaterial(f.params);
+      const m1 = compileMaterial(back);
+      for (const [t, T] of [
+        [10, 296.15],
+        [3.6e6, 353.15],
+        [3.6e8, 423.15],
+      ] as const) {
+        expectClose(modulusMPa(m1, t, T), modulusMPa(m0, t, T), {
+          rel: 1e-12,
+          source: 'round trip through the parameter block (identity)',
+        });
+      }
     }
+  });
+  it('reads blocks as the material arguments do: no header, any case, two columns', () => {
+    const two = parameterRows(getFamily('PC')).map(([k, v]) => [k.toUpperCase(), v]);
+    expect(paramsFromBlock({ values: two, formulas: two }, 'A1:B29').Tg_C).toBe(147);
   });
   it('names the range and the field when a block in the sheet is wrong', () => {
     const rows = parameterRows(getFamily('PC')).map(([k, v]) => [k, k === 'Tg_C' ? 'hot' : v] as [string, string | number]);

@@ -1,7 +1,7 @@
 /** Safe writing through the in-memory sheet: nothing the user typed is overwritten or lost. */
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../src/index.js';
-import { familyBlockPlan, parameterRows } from '../addin/families-job.js';
+import { blockRows, familyBlockPlan } from '../addin/families-job.js';
 import { MemoryWorkbook } from '../addin/memory-sheet.js';
 import { reviewPlan, type ReviewInput } from '../addin/review.js';
 import { checkTarget, commit, freeSheetName, OccupiedError, undo } from '../addin/writer.js';
@@ -102,7 +102,7 @@ describe('undo', () => {
     const rec = await commit(wb, familyBlockPlan(f), { sheet: 'Sheet1', topLeft: { row: 0, col: 0 } });
     wb.typeInto('Sheet1', { row: 4, col: 1 }, '45');
     const first = await undo(wb, rec);
-    expect(first).toEqual({ status: 'changed', cells: 1, where: `Sheet1!A1:B${parameterRows(f).length}` });
+    expect(first).toEqual({ status: 'changed', cells: 1, where: `Sheet1!A1:D${blockRows(f).length}` });
     expect(wb.cell('Sheet1', 4, 1)?.value).toBe(45);
     expect(await undo(wb, rec, true)).toEqual({ status: 'done' });
     expect(wb.filledCount('Sheet1')).toBe(0);

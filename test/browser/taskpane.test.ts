@@ -9,7 +9,7 @@ import buildAddin from '../../scripts/build/30-addin.mjs';
 import { CHROMIUM_ARGS, ensureChromium } from '../../scripts/ensure-chromium.mjs';
 import { startPreview, type Preview } from '../../scripts/preview-server.mjs';
 import { compileMaterial, cToKelvin, equivalentTimeS, getFamily, modulusMPa, parseTimeS, type Material } from '../../src/index.js';
-import { parameterRows } from '../../addin/families-job.js';
+import { blockRows } from '../../addin/families-job.js';
 import { expectClose } from '../expect.js';
 
 let preview: Preview;
@@ -84,12 +84,15 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await expect(card.textContent()).resolves.toContain('164 degC (160 to 168)');
     await card.getByRole('button', { name: 'Write parameters at the selected cell' }).click();
     await page.waitForSelector('#add-written-block');
-    const rows = parameterRows(getFamily('PP'));
-    for (const [i, [key, value]] of rows.entries()) {
-      expect(await cell('Sheet1', i, 3)).toMatchObject({ value: key });
-      if (value !== '') expect(await cell('Sheet1', i, 4)).toMatchObject({ value });
+    const rows = blockRows(getFamily('PP'));
+    for (const [i, row] of rows.entries()) {
+      for (const [j, value] of row.entries()) {
+        if (value === '') expect(await cell('Sheet1', i, 3 + j)).toBeNull();
+        else expect(await cell('Sheet1', i, 3 + j)).toMatchObject({ value });
+      }
     }
     expect(await cell('Sheet1', rows.length, 3)).toBeNull();
+    expect(await cell('Sheet1', 0, 7)).toBeNull();
     await page.click('#add-written-block');
   });
 
@@ -103,7 +106,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     // Three candidates: PC and PBT as families, PP as the block written above (POM is dropped).
     await page.getByRole('button', { name: 'Remove POM (family)' }).click();
     const listed = await page.locator('#candidate-list li').allTextContents();
-    expect(listed.map((t) => t.replace(/Remove$/, ''))).toEqual(['PC (family)', 'PBT (family)', 'Sheet1!D1:E29 (parameter block)']);
+    expect(listed.map((t) => t.replace(/Remove$/, ''))).toEqual(['PC (family)', 'PBT (family)', 'Sheet1!D1:G30 (parameter block)']);
     const before = await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'));
     await page.click('#write-review');
     await page.waitForSelector('#ask:not([hidden])');
@@ -128,7 +131,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     const materials: [string, string, Material][] = [
       ['PC', '$A7', compileMaterial(getFamily('PC').params)],
       ['PBT', '$A8', compileMaterial(getFamily('PBT').params)],
-      ['PP (Sheet1!D1:E29)', 'Sheet1!$D$1:$E$29', compileMaterial(getFamily('PP').params)],
+      ['PP (Sheet1!D1:G30)', 'Sheet1!$D$1:$G$30', compileMaterial(getFamily('PP').params)],
     ];
     const t = parseTimeS('1000 h');
     for (const [i, [label, ref, m]] of materials.entries()) {
@@ -167,7 +170,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     expect(charts).toHaveLength(1);
     const [chart] = charts;
     expect(chart?.logY).toBe(true);
-    expect(chart?.series.map((s) => s.label)).toEqual(['PC', 'PBT', 'PP (Sheet1!D1:E29)', 'Required 800 MPa']);
+    expect(chart?.series.map((s) => s.label)).toEqual(['PC', 'PBT', 'PP (Sheet1!D1:G30)', 'Required 800 MPa']);
     const pc = compileMaterial(getFamily('PC').params);
     expect(chart?.series[0]?.points.map((p) => p.x)).toEqual(TEMPS);
     chart?.series[0]?.points.forEach((p, j) =>
@@ -215,9 +218,9 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     expect(await sheets()).toEqual(['Sheet1']);
     expect(await page.evaluate(() => window.resinDeratePreview?.workbook.charts('Sheet1').length)).toBe(0);
     expect(await page.locator('#charts figure').count()).toBe(0);
-    expect(await cell('Sheet1', 0, 3)).toMatchObject({ value: 'id' });
+    expect(await cell('Sheet1', 1, 3)).toMatchObject({ value: 'id' });
     await undoOnce();
-    expect(await cell('Sheet1', 0, 3)).toBeNull();
+    expect(await cell('Sheet1', 1, 3)).toBeNull();
     expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
     expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(1);
     expect(await page.isHidden('#last-write')).toBe(true);
