@@ -8,9 +8,9 @@ import {
   ALL_KEYS,
   compileMaterial,
   cToKelvin,
-  equivalentTimeS,
   getFamily,
   InputError,
+  modulusAfterHistory,
   modulusMPa,
   parseStressMPa,
   parseTemperatureK,
@@ -165,9 +165,10 @@ export function checkReview(input: ReviewInput): void {
 export function reviewModulus(m: Material, temperatureC: number, load: Load): number {
   const TK = cToKelvin(temperatureC);
   if (load.kind === 'time') return modulusMPa(m, parseTimeS(load.time, 'service time'), TK);
+  // What DERATE.DUTY returns: both clocks of the model run through every step of every cycle, and the
+  // modulus is read at the column's temperature.
   const segments = load.steps.map((s) => ({ TK: cToKelvin(s.temperatureC), dtS: s.hours * SECONDS_PER_HOUR }));
-  // DERATE.EQTIME returns hours and DERATE.MODULUS reads bare numbers as hours: the same seconds as here.
-  return modulusMPa(m, equivalentTimeS(m, segments, TK, load.cycles), TK);
+  return modulusAfterHistory(m, segments, load.cycles, TK).modulusMPa;
 }
 
 export interface ReviewRowResult {
@@ -210,7 +211,7 @@ function assumptions(input: ReviewInput): string[] {
     lines.push('Load: each service temperature is held constant for the whole service time.');
   } else {
     lines.push(
-      'Duty cycle: at each service temperature, the cycle is turned into the equivalent time at that temperature, t_eq = cycles x sum(dt_i / a_T(T_i)) (thermorheologically simple, =DERATE.EQTIME), and E_r is taken after t_eq.',
+      'Duty cycle: E_r after all the cycles (=DERATE.DUTY), read at each service temperature; the time-temperature shift adds up dt_i / a_T(T_i) step by step (thermorheologically simple superposition, as in =DERATE.EQTIME).',
     );
   }
   if (input.candidates.some((c) => c.kind === 'family')) lines.push(FAMILY_NOTE);
@@ -264,14 +265,14 @@ export function reviewPlan(input: ReviewInput): Plan {
       put(L.requiredRow, 0, { value: 'Required modulus, MPa' });
       put(L.requiredRow, 1, { value: input.requiredMPa });
 
-      // The load, and the formula fragment that gives each temperature column its time.
-      let timeArg: (tempRef: string, matRef: string) => string;
+      // The load, and the formula each candidate/temperature cell gets.
+      let formulaFor: (matRef: string, tempRef: string) => string;
       const load = input.load;
       if (load.kind === 'time') {
         put(L.loadRow, 0, { value: typeof load.time === 'number' ? 'Service time, h' : 'Service time' });
         put(L.loadRow, 1, { value: load.time });
         const t = abs(at(L.loadRow, 1));
-        timeArg = () => t;
+        formulaFor = (matRef, tempRef) => `=DERATE.MODULUS(${matRef},${tempRef},${t})`;
       } else {
         put(L.loadRow, 0, { value: 'Duty cycle' });
         put(L.loadRow, 1, { value: 'degC' });
@@ -287,7 +288,7 @@ export function reviewPlan(input: ReviewInput): Plan {
         const temps = `${abs(at(L.loadRow + 1, 1))}:${abs(at(last, 1))}`;
         const hours = `${abs(at(L.loadRow + 1, 2))}:${abs(at(last, 2))}`;
         const cyc = abs(at(last + 1, 1));
-        timeArg = (tempRef, matRef) => `DERATE.EQTIME(${matRef},${temps},${hours},${tempRef},${cyc})`;
+        formulaFor = (matRef, tempRef) => `=DERATE.DUTY(${matRef},${temps},${hours},${cyc},${tempRef})`;
       }
 
       put(L.headerRow - 1, 0, { value: `E_r in MPa after ${describeLoad(load)}, at each service temperature (degC)` });
@@ -305,7 +306,7 @@ export function reviewPlan(input: ReviewInput): Plan {
         input.temperaturesC.forEach((_T, j) => {
           const tempRef = cellAddress(at(L.headerRow, 1 + j), { row: true });
           const value = res.moduliMPa[j] ?? NaN;
-          put(r, 1 + j, { formula: `=DERATE.MODULUS(${matRef},${tempRef},${timeArg(tempRef, matRef)})`, value, format: 'modulus' });
+          put(r, 1 + j, { formula: formulaFor(matRef, tempRef), value, format: 'modulus' });
         });
         const span = `${cellAddress(at(r, 1))}:${cellAddress(at(r, n))}`;
         put(r, n + 1, { formula: `=MIN(${span})`, value: res.lowestMPa, format: 'modulus' });

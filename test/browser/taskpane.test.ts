@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import buildAddin from '../../scripts/build/30-addin.mjs';
 import { CHROMIUM_ARGS, ensureChromium } from '../../scripts/ensure-chromium.mjs';
 import { startPreview, type Preview } from '../../scripts/preview-server.mjs';
-import { compileMaterial, cToKelvin, equivalentTimeS, getFamily, modulusMPa, parseTimeS, type Material } from '../../src/index.js';
+import { compileMaterial, cToKelvin, getFamily, modulusAfterHistory, modulusMPa, parseTimeS, type Material } from '../../src/index.js';
 import { blockRows } from '../../addin/families-job.js';
 import { expectClose } from '../expect.js';
 
@@ -187,22 +187,22 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.setViewportSize({ width: 1200, height: 900 });
   });
 
-  it('writes a duty-cycle review with DERATE.EQTIME inside each formula', async () => {
+  it('writes a duty-cycle review with DERATE.DUTY read at each temperature', async () => {
     await page.click('#load-cycle-radio');
     await page.fill('#temps', '30, 70');
     await page.fill('#target', 'Sheet1!A40');
     await page.click('#write-review');
     await page.waitForSelector('.status.ok');
     const c = await cell('Sheet1', 48, 1);
-    expect(c?.formula).toBe('=DERATE.MODULUS($A49,B$48,DERATE.EQTIME($A49,$B$43:$B$44,$C$43:$C$44,B$48,$B$45))');
+    expect(c?.formula).toBe('=DERATE.DUTY($A49,$B$43:$B$44,$C$43:$C$44,$B$45,B$48)');
     const pc = compileMaterial(getFamily('PC').params);
     const segments = [
       { TK: cToKelvin(70), dtS: 8 * 3600 },
       { TK: cToKelvin(30), dtS: 16 * 3600 },
     ];
-    expectClose(Number(c?.value), modulusMPa(pc, equivalentTimeS(pc, segments, cToKelvin(30), 3650), cToKelvin(30)), {
+    expectClose(Number(c?.value), modulusAfterHistory(pc, segments, 3650, cToKelvin(30)).modulusMPa, {
       rel: 1e-12,
-      source: `${ENGINE}; t_eq = N sum(dt_i / a_T(T_i)) (thermorheologically simple superposition)`,
+      source: 'engine modulusAfterHistory, the call DERATE.DUTY makes (consistency of pane and functions)',
     });
   });
 
