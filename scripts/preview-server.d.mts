@@ -4,3 +4,4 @@ export interface Preview {
   close(): Promise<void>;
 }
 export function startPreview(options?: { root?: string; port?: number; host?: string }): Promise<Preview>;
+export const PREVIEW_CONTENT_SECURITY_POLICY: string;

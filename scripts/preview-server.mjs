@@ -18,6 +18,22 @@ const TYPES = {
   '.txt': 'text/plain; charset=utf-8',
 };
 
+/**
+ * The same policy the add-in's https server sends (no inline script, no eval; Office.js from Microsoft's CDN
+ * only), so that the preview and its browser tests catch a page that would break inside Excel.
+ */
+export const PREVIEW_CONTENT_SECURITY_POLICY = [
+  "default-src 'self'",
+  "script-src 'self' https://appsforoffice.microsoft.com https://officeapis.public.onecdn.static.microsoft https://ajax.aspnetcdn.com",
+  "style-src 'self' 'unsafe-inline'",
+  "img-src 'self'",
+  "font-src 'self'",
+  "connect-src 'self'",
+  "object-src 'none'",
+  "base-uri 'self'",
+  "form-action 'self'",
+].join('; ');
+
 /** Starts the server; resolves with its address and a close function. Port 0 picks a free port. */
 export function startPreview({ root = 'dist', port = 4178, host = '127.0.0.1' } = {}) {
   const base = resolve(root);

@@ -61,6 +61,10 @@ beforeAll(async () => {
   page.setDefaultTimeout(10_000);
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
+  // The page runs under the add-in server's Content-Security-Policy; a violation is an error here.
+  page.on('console', (m) => {
+    if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) errors.push(m.text());
+  });
   await page.goto(`${preview.url}taskpane.html`);
   await page.waitForSelector('body[data-ready=true]', { timeout: 20_000 });
   expect(errors).toEqual([]);
