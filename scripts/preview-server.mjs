@@ -57,13 +57,17 @@ export function startPreview({ root = 'dist', port = 4178, host = '127.0.0.1' } 
       if (!st.isFile()) throw new Error('not a file');
       size = st.size;
     } catch {
-      res.writeHead(404, { 'content-type': 'text/plain; charset=utf-8' }).end(`not found: ${path}`);
+      res
+        .writeHead(404, { 'content-type': 'text/plain; charset=utf-8', 'content-security-policy': PREVIEW_CONTENT_SECURITY_POLICY })
+        .end(`not found: ${path}`);
       return;
     }
     res.writeHead(200, {
       'content-type': TYPES[extname(file)] ?? 'application/octet-stream',
       'content-length': size,
       'cache-control': 'no-store',
+      'content-security-policy': PREVIEW_CONTENT_SECURITY_POLICY,
+      'x-content-type-options': 'nosniff',
     });
     createReadStream(file).pipe(res);
   });
