@@ -1,0 +1,10 @@
+/** Text the pane shows and writes beside its results. */
+
+export const CAUTION =
+  'Estimates for screening and comparison only. Real grades differ with filler, fibre orientation, moisture, ageing, chemicals, processing and stress level (the model is linear viscoelastic, small strain). Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code; for parts whose failure can hurt someone, defer to local codes and licensed engineering review.';
+
+export const MODEL_NOTE =
+  'E_r is the relaxation modulus of the Resin Derate model: glassy, glass-transition, rubbery and flow regions (crystal plateau and melting for semi-crystalline families), shifted in time by WLF above Tg and Arrhenius below.';
+
+export const FAMILY_NOTE =
+  'Family symbols stand for typical unfilled, general-purpose grades of the bundled table (=DERATE.FAMILIES() lists them; the pane shows the source of each number).';

@@ -1,0 +1,374 @@
+/**
+ * The "build a review" job: a table of live DERATE formulas for candidate materials at service
+ * temperatures, with a lowest-value and a verdict column, notes, and a chart of modulus vs temperature.
+ * The values shown in the in-page sheet come from the engine directly, by the same calls the worksheet
+ * functions make.
+ */
+import {
+  ALL_KEYS,
+  compileMaterial,
+  cToKelvin,
+  getFamily,
+  InputError,
+  modulusAfterHistory,
+  modulusMPa,
+  parseStressMPa,
+  parseTemperatureK,
+  parseTimeS,
+  kelvinToC,
+  paramsFromRecord,
+  SECONDS_PER_HOUR,
+  type Material,
+  type MaterialParams,
+} from '../src/index.js';
+import { cellAddress, columnName, qualified, type Box, type Cell } from './a1.js';
+import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from './notes.js';
+import { isBlank, type CellValue, type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from './port.js';
+import type { Plan } from './writer.js';
+
+export type Candidate =
+  | { readonly kind: 'family'; readonly id: string }
+  | { readonly kind: 'block'; readonly range: SheetRange; readonly params: MaterialParams };
+
+export interface CycleStep {
+  readonly temperatureC: number;
+  readonly hours: number;
+}
+
+export type Load =
+  | { readonly kind: 'time'; readonly time: string | number }
+  | { readonly kind: 'cycle'; readonly steps: readonly CycleStep[]; readonly cycles: number };
+
+export interface ReviewInput {
+  readonly candidates: readonly Candidate[];
+  readonly temperaturesC: readonly number[];
+  readonly load: Load;
+  readonly requiredMPa: number;
+}
+
+/** Most service temperatures and candidates one review holds (keeps the table and chart readable). */
+export const MAX_TEMPERATURES = 12;
+export const MAX_CANDIDATES = 10;
+export const MAX_STEPS = 12;
+
+// ---- reading what the user typed ----
+
+/** "23, 40, 60 degC, 176 degF" -> degC numbers, ascending, duplicates removed. */
+export function parseTemperatureList(text: string, argument = 'service temperatures'): number[] {
+  const parts = text
+    .split(/[,;]/)
+    .map((s) => s.trim())
+    .filter(Boolean);
+  if (parts.length === 0) throw new InputError(argument, 'give at least one temperature, for example 23, 40, 60, 80');
+  const list = parts.map((p) => round6(kelvinToC(parseTemperatureK(p, argument))));
+  const unique = [...new Set(list)].sort((a, b) => a - b);
+  if (unique.length > MAX_TEMPERATURES)
+    throw new InputError(argument, `give at most ${MAX_TEMPERATURES} temperatures, got ${unique.length}`);
+  return unique;
+}
+
+function round6(x: number): number {
+  return Math.round(x * 1e6) / 1e6;
+}
+
+/** A service time as it will sit in its cell: a bare number stays a number (hours), text keeps its unit. */
+export function parseServiceTime(text: string): string | number {
+  const t = text.trim();
+  parseTimeS(t, 'service time');
+  const n = Number(t);
+  return Number.isFinite(n) ? n : t;
+}
+
+export function parseRequired(text: string): number {
+  return parseStressMPa(text.trim(), 'required modulus');
+}
+
+export function checkCycle(steps: readonly CycleStep[], cycles: number): void {
+  if (steps.length === 0) throw new InputError('duty cycle', 'add at least one step (a temperature and its hours per cycle)');
+  if (steps.length > MAX_STEPS) throw new InputError('duty cycle', `use at most ${MAX_STEPS} steps, got ${steps.length}`);
+  steps.forEach((s, i) => {
+    parseTemperatureK(s.temperatureC, `duty cycle step ${i + 1} temperature`);
+    if (!(s.hours > 0) || !Number.isFinite(s.hours))
+      throw new InputError(`duty cycle step ${i + 1} hours`, `must be a positive number of hours, got ${s.hours}`);
+  });
+  if (!(cycles >= 1) || !Number.isFinite(cycles)) throw new InputError('cycles', `must be a number of at least 1, got ${cycles}`);
+}
+
+const FIELD_BY_LOWER = new Map<string, string>(ALL_KEYS.map((k) => [k.toLowerCase(), k]));
+
+/**
+ * Turns a parameter block read from the sheet into parameters, reading it as the material arguments
+ * do: an optional 'field' header row, field names (any case) in the first column, values in the second,
+ * further columns ignored. Errors name the range.
+ */
+export function paramsFromBlock(content: RangeContent, where: string): MaterialParams {
+  const first = content.values[0];
+  if (!first || first.length < 2 || content.values.length < 2) {
+    throw new InputError(where, 'a parameter block has at least two columns (field names, values) and several rows');
+  }
+  const record: Record<string, CellValue> = {};
+  content.values.forEach((row, i) => {
+    const [k, v] = row;
+    if (isBlank(k)) {
+      if (row.slice(1).some((c) => !isBlank(c))) throw new InputError(where, `row ${i + 1} has a value but no field name`);
+      return;
+    }
+    if (typeof k !== 'string') throw new InputError(where, `row ${i + 1}: the first column holds field names, found ${String(k)}`);
+    const typed = k.trim();
+    if (i === 0 && typed.toLowerCase() === 'field') return;
+    const field = FIELD_BY_LOWER.get(typed.toLowerCase());
+    if (field === undefined) throw new InputError(where, `row ${i + 1}: '${typed}' is not a parameter name`);
+    if (field in record) throw new InputError(where, `row ${i + 1}: the field '${field}' appears twice`);
+    record[field] = v === undefined ? '' : v;
+  });
+  try {
+    const p = paramsFromRecord(record);
+    compileMaterial(p);
+    return p;
+  } catch (e) {
+    throw new InputError(where, e instanceof Error ? e.message : String(e));
+  }
+}
+
+export function candidateLabel(c: Candidate): string {
+  return c.kind === 'family' ? getFamily(c.id).params.id : `${c.params.id} (${qualified(c.range.sheet, c.range.box, false)})`;
+}
+
+function material(c: Candidate): Material {
+  return c.kind === 'family' ? compileMaterial(getFamily(c.id).params) : compileMaterial(c.params);
+}
+
+/** Validates everything a review needs; throws InputError naming the input. */
+export function checkReview(input: ReviewInput): void {
+  if (input.candidates.length === 0) throw new InputError('candidates', 'add at least one family or parameter block');
+  if (input.candidates.length > MAX_CANDIDATES) throw new InputError('candidates', `use at most ${MAX_CANDIDATES} candidates`);
+  if (input.temperaturesC.length === 0) throw new InputError('service temperatures', 'give at least one temperature');
+  for (const t of input.temperaturesC) parseTemperatureK(t, 'service temperatures');
+  if (input.load.kind === 'time') parseTimeS(input.load.time, 'service time');
+  else checkCycle(input.load.steps, input.load.cycles);
+  parseStressMPa(input.requiredMPa, 'required modulus');
+  input.candidates.forEach((c) => {
+    try {
+      material(c);
+    } catch (e) {
+      throw new InputError(
+        `candidate ${c.kind === 'family' ? c.id : qualified(c.range.sheet, c.range.box, false)}`,
+        e instanceof Error ? e.message : String(e),
+      );
+    }
+  });
+}
+
+// ---- the numbers ----
+
+/** E_r (MPa) of a candidate at T (degC) under the load: what the review's formula in that cell returns. */
+export function reviewModulus(m: Material, temperatureC: number, load: Load): number {
+  const TK = cToKelvin(temperatureC);
+  if (load.kind === 'time') return modulusMPa(m, parseTimeS(load.time, 'service time'), TK);
+  // What DERATE.DUTY returns: both clocks of the model run through every step of every cycle, and the
+  // modulus is read at the column's temperature.
+  const segments = load.steps.map((s) => ({ TK: cToKelvin(s.temperatureC), dtS: s.hours * SECONDS_PER_HOUR }));
+  return modulusAfterHistory(m, segments, load.cycles, TK).modulusMPa;
+}
+
+export interface ReviewRowResult {
+  readonly label: string;
+  readonly moduliMPa: readonly number[];
+  readonly lowestMPa: number;
+  readonly pass: boolean;
+}
+
+export function reviewResults(input: ReviewInput): ReviewRowResult[] {
+  return input.candidates.map((c) => {
+    const m = material(c);
+    const moduliMPa = input.temperaturesC.map((T) => reviewModulus(m, T, input.load));
+    const lowestMPa = Math.min(...moduliMPa);
+    return { label: candidateLabel(c), moduliMPa, lowestMPa, pass: lowestMPa >= input.requiredMPa };
+  });
+}
+
+// ---- the layout ----
+
+export interface ReviewLayout {
+  readonly rows: number;
+  readonly cols: number;
+  /** Row offsets inside the block. */
+  readonly requiredRow: number;
+  readonly loadRow: number;
+  readonly headerRow: number;
+  readonly firstCandidateRow: number;
+  readonly referenceRow: number;
+  readonly notesRow: number;
+}
+
+function loadLines(load: Load): number {
+  return load.kind === 'time' ? 1 : load.steps.length + 2;
+}
+
+function assumptions(input: ReviewInput): string[] {
+  const lines = [MODEL_NOTE];
+  if (input.load.kind === 'time') {
+    lines.push('Load: each service temperature is held constant for the whole service time.');
+  } else {
+    lines.push(
+      'Duty cycle: E_r after all the cycles (=DERATE.DUTY), read at each service temperature; the time-temperature shift adds up dt_i / a_T(T_i) step by step (thermorheologically simple superposition, as in =DERATE.EQTIME).',
+    );
+  }
+  if (input.candidates.some((c) => c.kind === 'family')) lines.push(FAMILY_NOTE);
+  if (input.candidates.some((c) => c.kind === 'block'))
+    lines.push('Parameter blocks are read live from their ranges: edit a value there and the row follows.');
+  lines.push('Verdict: pass when the lowest E_r over the listed temperatures is at least the required modulus.');
+  return lines;
+}
+
+export function reviewLayout(input: ReviewInput): ReviewLayout {
+  const n = input.temperaturesC.length;
+  const cols = Math.max(n + 3, 3);
+  const requiredRow = 1;
+  const loadRow = 2;
+  const headerRow = loadRow + loadLines(input.load) + 2;
+  const firstCandidateRow = headerRow + 1;
+  const referenceRow = firstCandidateRow + input.candidates.length;
+  const notesRow = referenceRow + 2;
+  const rows = notesRow + 1 + assumptions(input).length + 2;
+  return { rows, cols, requiredRow, loadRow, headerRow, firstCandidateRow, referenceRow, notesRow };
+}
+
+const abs = (c: Cell): string => cellAddress(c, { row: true, col: true });
+
+function describeLoad(load: Load): string {
+  if (load.kind === 'time') return typeof load.time === 'number' ? `${load.time} h` : load.time;
+  const hours = load.steps.reduce((s, x) => s + x.hours, 0);
+  return `${load.cycles} cycles of ${hours} h`;
+}
+
+export function reviewPlan(input: ReviewInput): Plan {
+  checkReview(input);
+  const L = reviewLayout(input);
+  const results = reviewResults(input);
+  const n = input.temperaturesC.length;
+  return {
+    label: 'review',
+    sheetBase: 'Review',
+    rows: L.rows,
+    cols: L.cols,
+    build(sheet: string, o: Cell) {
+      const at = (r: number, c: number): Cell => ({ row: o.row + r, col: o.col + c });
+      const cells: CellWrite[][] = Array.from({ length: L.rows }, () => Array.from({ length: L.cols }, () => ({ value: '' })));
+      const put = (r: number, c: number, w: CellWrite): void => {
+        const row = cells[r];
+        if (!row || c >= row.length) throw new Error(`layout error at row ${r}, column ${c}`);
+        row[c] = w;
+      };
+      const required = abs(at(L.requiredRow, 1));
+      put(0, 0, { value: 'Stiffness review (Resin Derate)' });
+      put(L.requiredRow, 0, { value: 'Required modulus, MPa' });
+      put(L.requiredRow, 1, { value: input.requiredMPa });
+
+      // The load, and the formula each candidate/temperature cell gets.
+      let formulaFor: (matRef: string, tempRef: string) => string;
+      const load = input.load;
+      if (load.kind === 'time') {
+        put(L.loadRow, 0, { value: typeof load.time === 'number' ? 'Service time, h' : 'Service time' });
+        put(L.loadRow, 1, { value: load.time });
+        const t = abs(at(L.loadRow, 1));
+        formulaFor = (matRef, tempRef) => `=DERATE.MODULUS(${matRef},${tempRef},${t})`;
+      } else {
+        put(L.loadRow, 0, { value: 'Duty cycle' });
+        put(L.loadRow, 1, { value: 'degC' });
+        put(L.loadRow, 2, { value: 'h per cycle' });
+        load.steps.forEach((s, i) => {
+          put(L.loadRow + 1 + i, 0, { value: `step ${i + 1}` });
+          put(L.loadRow + 1 + i, 1, { value: s.temperatureC });
+          put(L.loadRow + 1 + i, 2, { value: s.hours });
+        });
+        const last = L.loadRow + load.steps.length;
+        put(last + 1, 0, { value: 'Cycles' });
+        put(last + 1, 1, { value: load.cycles });
+        const temps = `${abs(at(L.loadRow + 1, 1))}:${abs(at(last, 1))}`;
+        const hours = `${abs(at(L.loadRow + 1, 2))}:${abs(at(last, 2))}`;
+        const cyc = abs(at(last + 1, 1));
+        formulaFor = (matRef, tempRef) => `=DERATE.DUTY(${matRef},${temps},${hours},${cyc},${tempRef})`;
+      }
+
+      put(L.headerRow - 1, 0, { value: `E_r in MPa after ${describeLoad(load)}, at each service temperature (degC)` });
+      put(L.headerRow, 0, { value: 'Material' });
+      input.temperaturesC.forEach((T, j) => put(L.headerRow, 1 + j, { value: T }));
+      put(L.headerRow, n + 1, { value: 'Lowest, MPa' });
+      put(L.headerRow, n + 2, { value: 'Verdict' });
+
+      input.candidates.forEach((c, i) => {
+        const r = L.firstCandidateRow + i;
+        const res = results[i];
+        if (!res) throw new Error('missing result row');
+        const matRef = c.kind === 'family' ? cellAddress(at(r, 0), { col: true }) : qualified(c.range.sheet, c.range.box);
+        put(r, 0, { value: c.kind === 'family' ? getFamily(c.id).params.id : res.label });
+        input.temperaturesC.forEach((_T, j) => {
+          const tempRef = cellAddress(at(L.headerRow, 1 + j), { row: true });
+          const value = res.moduliMPa[j] ?? NaN;
+          put(r, 1 + j, { formula: formulaFor(matRef, tempRef), value, format: 'modulus' });
+        });
+        const span = `${cellAddress(at(r, 1))}:${cellAddress(at(r, n))}`;
+        put(r, n + 1, { formula: `=MIN(${span})`, value: res.lowestMPa, format: 'modulus' });
+        put(r, n + 2, { formula: `=IF(${cellAddress(at(r, n + 1))}>=${required},"pass","fail")`, value: res.pass ? 'pass' : 'fail' });
+      });
+
+      put(L.referenceRow, 0, { value: 'Required, MPa' });
+      for (let j = 0; j < n; j++) put(L.referenceRow, 1 + j, { formula: `=${required}`, value: input.requiredMPa, format: 'modulus' });
+
+      put(L.notesRow, 0, { value: 'Assumptions' });
+      assumptions(input).forEach((line, i) => put(L.notesRow + 1 + i, 0, { value: line }));
+      const cautionRow = L.notesRow + 1 + assumptions(input).length;
+      put(cautionRow, 0, { value: 'Cautions' });
+      put(cautionRow + 1, 0, { value: CAUTION });
+
+      return { cells, chart: reviewChart(input, results, L, sheet, o) };
+    },
+  };
+}
+
+function reviewChart(input: ReviewInput, results: readonly ReviewRowResult[], L: ReviewLayout, sheet: string, o: Cell): ChartSpec {
+  const n = input.temperaturesC.length;
+  const rowBox = (r: number): Box => ({ top: o.row + r, left: o.col + 1, bottom: o.row + r, right: o.col + n });
+  const x = { sheet, box: rowBox(L.headerRow) };
+  const series: ChartSeries[] = results.map((res, i) => ({
+    name: res.label,
+    x,
+    y: { sheet, box: rowBox(L.firstCandidateRow + i) },
+    xValues: input.temperaturesC,
+    yValues: res.moduliMPa,
+  }));
+  series.push({
+    name: `Required ${input.requiredMPa} MPa`,
+    x,
+    y: { sheet, box: rowBox(L.referenceRow) },
+    xValues: input.temperaturesC,
+    yValues: input.temperaturesC.map(() => input.requiredMPa),
+    reference: true,
+  });
+  const left = o.col + L.cols + 1;
+  return {
+    name: `Resin Derate chart ${columnName(o.col)}${o.row + 1}`,
+    sheet,
+    title: `E_r after ${describeLoad(input.load)} vs temperature`,
+    xTitle: 'Temperature, degC',
+    yTitle: 'E_r, MPa (log scale)',
+    logY: true,
+    yMin: logAxisMinimum(
+      results.flatMap((r) => r.moduliMPa),
+      input.requiredMPa,
+    ),
+    series,
+    place: { top: o.row, left, bottom: o.row + 17, right: left + 7 },
+  };
+}
+
+/**
+ * Lower end of the log axis: a power of ten at or below the smallest value, but no more than four decades
+ * under the required modulus, so that a melted candidate does not squash the rest of the chart.
+ */
+export function logAxisMinimum(values: readonly number[], requiredMPa: number): number {
+  const floor = requiredMPa / 1e4;
+  const smallest = Math.min(requiredMPa, ...values.filter((v) => v > 0));
+  return 10 ** Math.floor(Math.log10(Math.max(smallest, floor)));
+}

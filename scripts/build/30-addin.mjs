@@ -1,0 +1,35 @@
+// The task pane: addin/boot.ts (the head script that loads Office.js inside Excel only) and addin/taskpane.ts bundled for the browser (ES modules; chart.js split into its own
+// chunk, fetched only by the in-page preview sheet), plus the page and its style sheet copied to dist/.
+import { copyFileSync, mkdirSync, rmSync } from 'node:fs';
+import { build } from 'esbuild';
+
+export default async function buildAddin() {
+  rmSync('dist/pane-chunks', { recursive: true, force: true });
+  mkdirSync('dist', { recursive: true });
+  await build({
+    entryPoints: { taskpane: 'addin/taskpane.ts' },
+    outdir: 'dist',
+    bundle: true,
+    splitting: true,
+    format: 'esm',
+    platform: 'browser',
+    target: ['es2020', 'chrome100', 'edge100', 'firefox100', 'safari15'],
+    minify: true,
+    sourcemap: 'linked',
+    chunkNames: 'pane-chunks/[name]-[hash]',
+    logLevel: 'warning',
+    legalComments: 'linked',
+  });
+  await build({
+    entryPoints: ['addin/boot.ts'],
+    outfile: 'dist/boot.js',
+    bundle: true,
+    format: 'iife',
+    platform: 'browser',
+    target: ['es2020'],
+    minify: true,
+    logLevel: 'warning',
+  });
+  copyFileSync('addin/taskpane.html', 'dist/taskpane.html');
+  copyFileSync('addin/taskpane.css', 'dist/taskpane.css');
+}

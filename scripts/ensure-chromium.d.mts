@@ -1,0 +1,3 @@
+export const CHROMIUM_PATH: string;
+export const CHROMIUM_ARGS: string[];
+export function ensureChromium(): string;

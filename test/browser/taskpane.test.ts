@@ -1,0 +1,304 @@
+/**
+ * The task pane in a real browser: Debian's Chromium driven by playwright-core against the preview
+ * server, with the in-memory sheet. Every request that leaves localhost is blocked and fails the run.
+ */
+import { mkdirSync } from 'node:fs';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import buildAddin from '../../scripts/build/30-addin.mjs';
+import { CHROMIUM_ARGS, ensureChromium } from '../../scripts/ensure-chromium.mjs';
+import { startPreview, type Preview } from '../../scripts/preview-server.mjs';
+import { compileMaterial, cToKelvin, getFamily, modulusAfterHistory, modulusMPa, parseTimeS, type Material } from '../../src/index.js';
+import { blockRows } from '../../addin/families-job.js';
+import { expectClose } from '../expect.js';
+
+let preview: Preview;
+let browser: Browser;
+let page: Page;
+const outside: string[] = [];
+
+const TEMPS = [23, 40, 60, 80, 100];
+const ENGINE = 'engine modulusMPa, the call DERATE.MODULUS makes (consistency of pane and functions)';
+
+interface CellView {
+  value: string | number | boolean;
+  formula?: string;
+}
+
+async function cell(sheet: string, row: number, col: number): Promise<CellView | null> {
+  return page.evaluate(([s, r, c]) => window.resinDeratePreview?.workbook.cell(s as string, r as number, c as number) ?? null, [
+    sheet,
+    row,
+    col,
+  ] as const);
+}
+
+async function sheets(): Promise<string[]> {
+  return page.evaluate(() => window.resinDeratePreview?.workbook.sheetNames() ?? Promise.resolve([]));
+}
+
+async function clickCell(row: number, col: number): Promise<void> {
+  await page.click(`#cell-${row}-${col}`);
+}
+
+beforeAll(async () => {
+  const executablePath = ensureChromium();
+  await buildAddin();
+  mkdirSync('test-output', { recursive: true });
+  mkdirSync('docs', { recursive: true });
+  preview = await startPreview({ root: 'dist', port: 0 });
+  browser = await chromium.launch({ executablePath, args: CHROMIUM_ARGS });
+  const context = await browser.newContext({ viewport: { width: 1200, height: 900 } });
+  await context.route('**/*', async (route) => {
+    const url = new URL(route.request().url());
+    if (url.hostname === 'localhost' || url.hostname === '127.0.0.1') await route.continue();
+    else {
+      outside.push(url.href);
+      await route.abort('blockedbyclient');
+    }
+  });
+  page = await context.newPage();
+  page.setDefaultTimeout(10_000);
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  // The page runs under the add-in server's Content-Security-Policy; a violation is an error here.
+  page.on('console', (m) => {
+    if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) errors.push(m.text());
+  });
+  await page.goto(`${preview.url}taskpane.html`);
+  await page.waitForSelector('body[data-ready=true]', { timeout: 20_000 });
+  expect(errors).toEqual([]);
+}, 600_000);
+
+afterAll(async () => {
+  await browser?.close();
+  await preview?.close();
+});
+
+describe('task pane in Chromium with the in-memory sheet', () => {
+  it('starts without Office and says so', async () => {
+    await expect(page.textContent('#host-note')).resolves.toMatch(/in-page sheet/);
+    expect(await page.isVisible('#preview')).toBe(true);
+  });
+
+  it('writes a family parameter block at the selected cell', async () => {
+    await clickCell(0, 3);
+    await page.fill('#family-search', 'polypropylene');
+    const card = page.locator('li[data-family="PP"]');
+    await expect(card.textContent()).resolves.toContain('164 degC (160 to 168)');
+    await card.getByRole('button', { name: 'Write parameters at the selected cell' }).click();
+    await page.waitForSelector('#add-written-block');
+    const rows = blockRows(getFamily('PP'));
+    for (const [i, row] of rows.entries()) {
+      for (const [j, value] of row.entries()) {
+        if (value === '') expect(await cell('Sheet1', i, 3 + j)).toBeNull();
+        else expect(await cell('Sheet1', i, 3 + j)).toMatchObject({ value });
+      }
+    }
+    expect(await cell('Sheet1', rows.length, 3)).toBeNull();
+    expect(await cell('Sheet1', 0, 7)).toBeNull();
+    await page.click('#add-written-block');
+  });
+
+  it('does not overwrite a non-empty target: it asks, and offers a new sheet', async () => {
+    await clickCell(0, 0);
+    await page.fill('#cell-input', 'keep me (typed by the user)');
+    await page.press('#cell-input', 'Enter');
+    await clickCell(0, 0);
+    await page.click('#tab-review');
+    await expect(page.inputValue('#target')).resolves.toBe('Sheet1!A1');
+    // Three candidates: PC and PBT as families, PP as the block written above (POM is dropped).
+    await page.getByRole('button', { name: 'Remove POM (family)' }).click();
+    const listed = await page.locator('#candidate-list li').allTextContents();
+    expect(listed.map((t) => t.replace(/Remove$/, ''))).toEqual(['PC (family)', 'PBT (family)', 'Sheet1!D1:G30 (parameter block)']);
+    const before = await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'));
+    await page.click('#write-review');
+    await page.waitForSelector('#ask:not([hidden])');
+    await expect(page.textContent('#ask-text')).resolves.toMatch(
+      /Sheet1!A1:H19 .*\d+ cells there already hold something.*Nothing has been changed/,
+    );
+    expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
+    expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(before);
+    await page.click('#ask-new-sheet');
+    await page.waitForSelector('.status.ok');
+    expect(await sheets()).toEqual(['Sheet1', 'Review 1']);
+    expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
+  });
+
+  it('writes live DERATE formulas with the values the engine gives', async () => {
+    const S = 'Review 1';
+    expect(await cell(S, 0, 0)).toMatchObject({ value: 'Stiffness review (Resin Derate)' });
+    expect(await cell(S, 1, 1)).toMatchObject({ value: 800 });
+    expect(await cell(S, 2, 1)).toMatchObject({ value: '1000 h' });
+    const header = 5;
+    for (const [j, T] of TEMPS.entries()) expect(await cell(S, header, 1 + j)).toMatchObject({ value: T });
+    const materials: [string, string, Material][] = [
+      ['PC', '$A7', compileMaterial(getFamily('PC').params)],
+      ['PBT', '$A8', compileMaterial(getFamily('PBT').params)],
+      ['PP (Sheet1!D1:G30)', 'Sheet1!$D$1:$G$30', compileMaterial(getFamily('PP').params)],
+    ];
+    const t = parseTimeS('1000 h');
+    for (const [i, [label, ref, m]] of materials.entries()) {
+      const r = header + 1 + i;
+      expect(await cell(S, r, 0)).toMatchObject({ value: label });
+      const moduli: number[] = [];
+      for (const [j, T] of TEMPS.entries()) {
+        const c = await cell(S, r, 1 + j);
+        const col = String.fromCharCode(66 + j);
+        expect(c?.formula).toBe(`=DERATE.MODULUS(${ref},${col}$6,$B$3)`);
+        const expected = modulusMPa(m, t, cToKelvin(T));
+        expectClose(Number(c?.value), expected, { rel: 1e-12, source: ENGINE });
+        moduli.push(expected);
+      }
+      const lowest = await cell(S, r, 6);
+      expect(lowest?.formula).toBe(`=MIN(B${r + 1}:F${r + 1})`);
+      expectClose(Number(lowest?.value), Math.min(...moduli), { rel: 1e-12, source: 'minimum of the row (closed form)' });
+      const verdict = await cell(S, r, 7);
+      expect(verdict?.formula).toBe(`=IF(G${r + 1}>=$B$2,"pass","fail")`);
+      expect(verdict?.value).toBe(Math.min(...moduli) >= 800 ? 'pass' : 'fail');
+    }
+    expect(await cell(S, 9, 0)).toMatchObject({ value: 'Required, MPa' });
+    expect((await cell(S, 9, 1))?.formula).toBe('=$B$2');
+    const texts: string[] = [];
+    for (let r = 10; r < 20; r++) texts.push(String((await cell(S, r, 0))?.value ?? ''));
+    expect(texts).toContain('Assumptions');
+    expect(texts).toContain('Cautions');
+    expect(texts.join(' ')).toMatch(/screening and comparison only.*ISO 899, ASTM D2990.*licensed engineering review/);
+    // The pane's own summary shows the same verdicts.
+    await expect(page.locator('#review-summary tbody tr').allTextContents()).resolves.toHaveLength(3);
+  });
+
+  it('draws a log-axis chart of the candidates with the required stiffness as a line', async () => {
+    await page.waitForSelector('#charts figure canvas');
+    const charts = await page.evaluate(() => window.resinDeratePreview?.view.chartData() ?? []);
+    expect(charts).toHaveLength(1);
+    const [chart] = charts;
+    expect(chart?.logY).toBe(true);
+    expect(chart?.series.map((s) => s.label)).toEqual(['PC', 'PBT', 'PP (Sheet1!D1:G30)', 'Required 800 MPa']);
+    const pc = compileMaterial(getFamily('PC').params);
+    expect(chart?.series[0]?.points.map((p) => p.x)).toEqual(TEMPS);
+    chart?.series[0]?.points.forEach((p, j) =>
+      expectClose(p.y, modulusMPa(pc, parseTimeS('1000 h'), cToKelvin(TEMPS[j] ?? NaN)), { rel: 1e-12, source: ENGINE }),
+    );
+    expect(chart?.series[3]?.points.map((p) => p.y)).toEqual([800, 800, 800, 800, 800]);
+    const stored = await page.evaluate(() =>
+      window.resinDeratePreview?.workbook.charts('Review 1').map((c) => c.series.map((s) => s.y.box)),
+    );
+    expect(stored?.[0]?.[0]).toEqual({ top: 6, left: 1, bottom: 6, right: 5 });
+    await page.screenshot({ path: 'test-output/taskpane-review.png', fullPage: true });
+    await page.setViewportSize({ width: 1200, height: 1240 });
+    await page.screenshot({ path: 'docs/taskpane.png' });
+    await page.setViewportSize({ width: 1200, height: 900 });
+  });
+
+  it('writes a duty-cycle review with DERATE.DUTY read at each temperature', async () => {
+    await page.click('#load-cycle-radio');
+    await page.fill('#temps', '30, 70');
+    await page.fill('#target', 'Sheet1!A40');
+    await page.click('#write-review');
+    await page.waitForSelector('.status.ok');
+    const c = await cell('Sheet1', 48, 1);
+    expect(c?.formula).toBe('=DERATE.DUTY($A49,$B$43:$B$44,$C$43:$C$44,$B$45,B$48)');
+    const pc = compileMaterial(getFamily('PC').params);
+    const segments = [
+      { TK: cToKelvin(70), dtS: 8 * 3600 },
+      { TK: cToKelvin(30), dtS: 16 * 3600 },
+    ];
+    expectClose(Number(c?.value), modulusAfterHistory(pc, segments, 3650, cToKelvin(30)).modulusMPa, {
+      rel: 1e-12,
+      source: 'engine modulusAfterHistory, the call DERATE.DUTY makes (consistency of pane and functions)',
+    });
+  });
+
+  it('undo removes exactly what the pane wrote, newest first, and leaves the user data', async () => {
+    const undoOnce = async (): Promise<void> => {
+      await page.click('#undo');
+      await page.waitForSelector('.status.ok >> text=Removed the');
+    };
+    await undoOnce();
+    expect(await cell('Sheet1', 48, 1)).toBeNull();
+    expect(await sheets()).toEqual(['Sheet1', 'Review 1']);
+    await undoOnce();
+    expect(await sheets()).toEqual(['Sheet1']);
+    expect(await page.evaluate(() => window.resinDeratePreview?.workbook.charts('Sheet1').length)).toBe(0);
+    expect(await page.locator('#charts figure').count()).toBe(0);
+    expect(await cell('Sheet1', 1, 3)).toMatchObject({ value: 'id' });
+    await undoOnce();
+    expect(await cell('Sheet1', 1, 3)).toBeNull();
+    expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
+    expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(1);
+    expect(await page.isHidden('#last-write')).toBe(true);
+  });
+
+  it('labels every control and reaches the jobs by keyboard', async () => {
+    const unlabelled = await page.evaluate(() =>
+      Array.from(document.querySelectorAll<HTMLElement>('#pane button, #pane input, #pane select, #preview input, #grid'))
+        .filter((el) => {
+          const labels = (el as HTMLInputElement).labels;
+          const name =
+            el.getAttribute('aria-label') ?? el.getAttribute('aria-labelledby') ?? (el.tagName === 'BUTTON' ? el.textContent?.trim() : '');
+          return !(labels && labels.length > 0) && !name && !el.closest('label');
+        })
+        .map((el) => el.id || el.outerHTML.slice(0, 80)),
+    );
+    expect(unlabelled).toEqual([]);
+    await page.focus('#tab-review');
+    await page.keyboard.press('ArrowLeft');
+    await expect(page.evaluate(() => document.activeElement?.id)).resolves.toBe('tab-families');
+    expect(await page.isVisible('#job-families')).toBe(true);
+    await page.keyboard.press('ArrowRight');
+    const reached = new Set<string>();
+    for (let i = 0; i < 40; i++) {
+      await page.keyboard.press('Tab');
+      reached.add(await page.evaluate(() => document.activeElement?.id ?? ''));
+    }
+    for (const id of ['add-family', 'add-family-btn', 'add-block', 'temps', 'load-cycle-radio', 'required', 'target', 'write-review']) {
+      expect(reached, id).toContain(id);
+    }
+  });
+
+  it('is readable at the pane width of 320 px', async () => {
+    await page.setViewportSize({ width: 320, height: 900 });
+    await page.click('#tab-families');
+    const overflow = await page.evaluate(() => {
+      const pane = document.getElementById('pane');
+      return pane ? pane.scrollWidth - pane.clientWidth : -1;
+    });
+    expect(overflow).toBe(0);
+    const smallest = await page.evaluate(() =>
+      Math.min(
+        ...Array.from(document.querySelectorAll('#pane p, #pane label, #pane button, #pane dd')).map((el) =>
+          parseFloat(getComputedStyle(el).fontSize),
+        ),
+      ),
+    );
+    expect(smallest).toBeGreaterThanOrEqual(12);
+    await page.screenshot({ path: 'test-output/taskpane-320.png', fullPage: false });
+    await page.setViewportSize({ width: 1200, height: 900 });
+  });
+
+  it('fetches Office.js only when Excel opened the page, and falls back to the in-page sheet when it cannot load', async () => {
+    const officeJs = 'https://appsforoffice.microsoft.com/lib/1/hosted/office.js';
+    const context = await browser.newContext({ viewport: { width: 400, height: 700 } });
+    const attempts: string[] = [];
+    await context.route('**/*', async (route) => {
+      const url = new URL(route.request().url());
+      if (url.hostname === 'localhost' || url.hostname === '127.0.0.1') await route.continue();
+      else {
+        attempts.push(url.href);
+        await route.abort('blockedbyclient');
+      }
+    });
+    const hosted = await context.newPage();
+    await hosted.goto(`${preview.url}taskpane.html?_host_Info=Excel$Win32$16.01$en-US$$$$0`);
+    await hosted.waitForSelector('body[data-ready=true]', { timeout: 10_000 });
+    await expect(hosted.textContent('#host-note')).resolves.toMatch(/Office.js did not load/);
+    await context.close();
+    // Blocked like everything else; this page is not counted with the main page's requests below.
+    expect(attempts).toEqual([officeJs]);
+  });
+
+  it('made no request outside localhost', () => {
+    expect(outside).toEqual([]);
+  });
+});
