@@ -3,14 +3,17 @@ import { ParameterError } from './errors.js';
 import { getFamily } from './families.js';
 import { compileMaterial, type Material } from './model.js';
 import { KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
+import { compilePronyMaterial, isPronySpec, type PronyMaterialSpec } from './pronymaterial.js';
 import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
 
-/** A family id (case-insensitive) or a parameter record. */
-export type MaterialInput = string | MaterialParams;
+/** A family id (case-insensitive), a parameter record, or a Prony-series material. */
+export type MaterialInput = string | MaterialParams | PronyMaterialSpec;
 
-/** Compiles a family id or a parameter record into a material. */
+/** Compiles a family id, a parameter record or a Prony material into a material. */
 export function resolveMaterial(input: MaterialInput): Material {
-  return compileMaterial(typeof input === 'string' ? getFamily(input).params : input);
+  if (typeof input === 'string') return compileMaterial(getFamily(input).params);
+  if (isPronySpec(input)) return compilePronyMaterial(input);
+  return compileMaterial(input);
 }
 
 const KNOWN_KEYS = new Set<string>([...TEXT_FIELDS, ...NUMERIC_FIELDS.map((f) => f.key)]);
