@@ -34,7 +34,7 @@ export const HDT_PRELOAD_S = 300;
 /** Start temperature of the bath, degC (ISO 75-1 asks for 20 to 23 degC). */
 export const HDT_START_C = 23;
 /** Coarse temperature step of the simulation, K. */
-export const HDT_STEP_K = 1;
+export const HDT_STEP_K = 2;
 /** Fine steps into which the step that crosses the end point is divided. */
 export const HDT_REFINE_STEPS = 40;
 /** Highest temperature the simulation heats to, degC. */
@@ -54,7 +54,7 @@ export interface HdtResult {
 /** Creep compliance (1/MPa) at the accumulated clocks, by the capped local power law. */
 export function hdtCompliance(m: Material, xi: number, theta: number, TK: number): number {
   const E = evaluateReduced(m, xi, theta, TK).modulusMPa;
-  const n = Math.min(localSlopeAtClocks(m, xi, theta, TK), HDT_SLOPE_CAP);
+  const n = Math.min(localSlopeAtClocks(m, xi, theta, TK, E), HDT_SLOPE_CAP);
   return powerLawProduct(n) / E;
 }
 
