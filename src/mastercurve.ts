@@ -75,6 +75,16 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   const Xmin = X[0] ?? 0;
   const Xmax = X[X.length - 1] ?? 0;
   const need = Math.max(MIN_OVERLAP_POINTS, Math.ceil(MIN_OVERLAP_SHARE * x.length));
+  // A horizontal shift leaves the moduli where they are: the curves must share a range of modulus.
+  const Ylo = Math.min(...Y) - 0.02;
+  const Yhi = Math.max(...Y) + 0.02;
+  const inRange = y.filter((v) => v >= Ylo && v <= Yhi).length;
+  if (inRange < need) {
+    throw new InputError(
+      'data',
+      `the curves at ${(cur.temperatureK - KELVIN_OFFSET).toFixed(2)} and ${(ref.temperatureK - KELVIN_OFFSET).toFixed(2)} degC cannot be overlapped: only ${inRange} points of the first lie in the modulus range of the second (${need} needed); add a curve between them or extend the times`,
+    );
+  }
   const objective = (s: number): { f: number; n: number } => {
     let sum = 0;
     let n = 0;
