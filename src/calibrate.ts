@@ -529,3 +529,14 @@ function fitResiduals(fits: readonly FitInput[], p: MaterialParams): number[] {
   const m = compileMaterial(p);
   return fits.map((f) => f.scale(f.evaluate(m)));
 }
+
+/**
+ * The check table of a calibration as worksheet rows: a header, then one row per input (input, given,
+ * reproduced, unit, tolerance, within, set through). For a wrapper that spills it beside the record.
+ */
+export function calibrationCheckRows(r: CalibrationResult): (string | number)[][] {
+  return [
+    ['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through'],
+    ...r.residuals.map((x) => [x.input, x.given, x.reproduced ?? 'not reached', x.unit, x.tolerance, x.within ? 'yes' : 'no', x.via]),
+  ];
+}

@@ -20,7 +20,7 @@ export interface FreeParameter {
   readonly log: boolean;
 }
 
-export type LsqReason = 'converged' | 'exact' | 'stalled' | 'iteration-cap' | 'non-finite';
+export type LsqReason = 'converged' | 'exact' | 'stalled' | 'iteration-cap';
 
 export interface LsqResult {
   readonly values: number[];

@@ -14,6 +14,8 @@
  *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
  * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
  * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
+ * A Prony-series material (pronymaterial.ts, fitted from test curves) is evaluated by the same entry
+ * points: E = E_inf + sum E_i exp(-xi / tau_i), with its own shift law.
  */
 import { ParameterError } from './errors.js';
 import type { Kind, MaterialParams } from './params.js';

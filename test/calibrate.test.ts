@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   calibrateDatasheet,
+  calibrationCheckRows,
   compileMaterial,
   creepModulusMPa,
   DATASHEET_TIME_S,
@@ -96,6 +97,24 @@ describe('datasheet calibration round trips', () => {
     expect(r.quality).toBe('poor');
     expect(r.free.some((f) => f.atBound)).toBe(true);
     expect(r.notes.join(' ')).toMatch(/bound/);
+  });
+});
+
+describe('datasheet calibration of networks and the check table', () => {
+  it('sets Mc of a rubber from its 23 degC modulus: E = 3 rho R T / Mc', () => {
+    const r = calibrateDatasheet('EPDM', { modulus23MPa: 5 });
+    expect(r.free.map((f) => f.field)).toEqual(['Mc_kgmol']);
+    const expected = (3 * 860 * 8.314462618 * T23_K) / 5e6;
+    expectClose(r.params.Mc_kgmol, expected, {
+      rel: 0.002,
+      source: 'affine network E = 3 rho R T / Mc (Flory 1953; Treloar 1975), rho 860 kg/m3',
+    });
+  });
+  it('gives one check row per input', () => {
+    const r = calibrateDatasheet('PC', { modulus23MPa: 2400, TgK: 147 + K });
+    const rows = calibrationCheckRows(r);
+    expect(rows[0]).toEqual(['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through']);
+    expect(rows.length).toBe(3);
   });
 });
 

@@ -8,6 +8,8 @@ import {
   getFamily,
   compileMaterial,
   isPronyTable,
+  materialInputFromRange,
+  paramsToRecord,
   KELVIN_OFFSET,
   maxTemperatureK,
   modulusMPa,
@@ -78,6 +80,13 @@ describe('Prony material', () => {
     expect(isPronyTable(table)).toBe(true);
     expect(pronyFromTable(table)).toEqual(SPEC);
     expect(pronyFromRecord(pronyToRecord(SPEC) as unknown as Record<string, unknown>)).toEqual(SPEC);
+  });
+  it('is read from a worksheet range, as is a parameter block', () => {
+    expect(materialInputFromRange(pronyToTable(SPEC))).toEqual(SPEC);
+    const block = Object.entries(paramsToRecord(getFamily('PC').params)).map(([k, v]) => [k, v]);
+    const m = resolveMaterial(materialInputFromRange([...block, [null, null]]));
+    expectClose(modulusMPa(m, 10, 23 + K), 2350, { rel: 1e-9, source: 'PC family E23 anchor (families.ts, common practice)' });
+    expect(() => materialInputFromRange([['Tg_C', 100, 5]])).toThrow(/row 1 of the parameter block must be a name and a value/);
   });
   it('refuses bad tables with the row named', () => {
     const table = pronyToTable(SPEC);
