@@ -11,6 +11,28 @@ import {
 } from '../src/index.js';
 import { expectClose } from './expect.js';
 import { graded } from './quadrature.js';
+import { seededRandom } from '../src/cli/demodata.js';
+
+/** Unconstrained least squares by the normal equations and Gaussian elimination (small, well-posed test problems). */
+function leastSquares(A: number[][], b: number[]): number[] {
+  const n = A[0]?.length ?? 0;
+  if (n === 0) return [];
+  const M = Array.from({ length: n }, (_, i) => [
+    ...Array.from({ length: n }, (_, j) => A.reduce((s, row) => s + (row[i] ?? 0) * (row[j] ?? 0), 0)),
+    A.reduce((s, row, k) => s + (row[i] ?? 0) * (b[k] ?? 0), 0),
+  ]);
+  for (let c = 0; c < n; c++) {
+    let p = c;
+    for (let r = c + 1; r < n; r++) if (Math.abs(M[r]![c]!) > Math.abs(M[p]![c]!)) p = r;
+    [M[c], M[p]] = [M[p]!, M[c]!];
+    for (let r = 0; r < n; r++) {
+      if (r === c) continue;
+      const f = M[r]![c]! / M[c]![c]!;
+      for (let k = c; k <= n; k++) M[r]![k] = M[r]![k]! - f * M[c]![k]!;
+    }
+  }
+  return M.map((row, i) => row[n]! / row[i]!);
+}
 
 const MAXWELL = 'single Maxwell element: E = E0 exp(-t/tau), D = (1 + t/tau)/E0 (closed form)';
 const SLS = 'standard linear solid: D = 1/E_inf - (1/E_inf - 1/E_g) exp(-t E_inf / (tau E_g)) (closed form)';
@@ -131,6 +153,28 @@ describe('Prony fit by non-negative least squares', () => {
     expectClose(r.x[0] ?? NaN, 1, { abs: 1e-12, source: 'closed form (orthogonal columns)' });
     expectClose(r.x[1] ?? NaN, 0, { abs: 1e-12, source: 'closed form (orthogonal columns)' });
     expectClose(r.residualNorm, 1, { abs: 1e-12, source: 'closed form (orthogonal columns)' });
+  });
+  it('matches brute-force enumeration of active sets on random 12 x 4 problems', () => {
+    const rand = seededRandom(5);
+    for (let trial = 0; trial < 20; trial++) {
+      const A = Array.from({ length: 12 }, () => Array.from({ length: 4 }, () => rand() * 2 - 1));
+      const b = Array.from({ length: 12 }, () => rand() * 2 - 1);
+      const r = nnls(A, b);
+      // Oracle: the best feasible least-squares solution over all 16 subsets of free columns.
+      let best = Infinity;
+      for (let mask = 0; mask < 16; mask++) {
+        const idx = [0, 1, 2, 3].filter((j) => mask & (1 << j));
+        const x = leastSquares(
+          A.map((row) => idx.map((j) => row[j] ?? 0)),
+          b,
+        );
+        if (x.some((v) => v < 0)) continue;
+        const res = Math.hypot(...b.map((bi, i) => bi - idx.reduce((s, j, k) => s + (A[i]?.[j] ?? 0) * (x[k] ?? 0), 0)));
+        best = Math.min(best, res);
+      }
+      expectClose(r.residualNorm, best, { rel: 1e-9, source: 'exhaustive search over active sets (exact for 4 columns)' });
+      expect(r.x.every((v) => v >= 0)).toBe(true);
+    }
   });
   it('refuses bad data with the point named', () => {
     expect(() => fitProny([1, 2], [3, 4])).toThrow(/at least 3 points/);
