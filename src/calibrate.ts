@@ -114,7 +114,9 @@ export interface CalibrationResult {
  * Choices (set here, from the model's sensitivities): an amorphous or crosslinked HDT sits just above
  * the point where the glass-transition clock reaches its time scale, so it moves with Tg (when Tg is
  * not given), then with the time scale tauTg at Tg, then with the breadth beta. A semi-crystalline HDT
- * at high stress moves with the crystal plateau (crystallinity), at low stress with the melting law.
+ * at high stress moves with the crystal plateau (crystallinity), at low stress with the melting law;
+ * where both HDTs lie in the melting range those two move them alike, and the breadth or time scale of
+ * the amorphous phase's transition (beta, tauTg) separates them.
  * A long-time modulus below Tg moves with the slow-creep exponent, then with its activation energy.
  */
 export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: NumericField[]; modulus: NumericField[] }> = {
@@ -124,8 +126,8 @@ export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: Nu
     modulus: ['creepN', 'creepEa_kJmol', 'beta', 'plateau_MPa'],
   },
   semicrystalline: {
-    hdtHigh: ['crystallinity', 'meltSharpness', 'creepN', 'creepEa_kJmol'],
-    hdtLow: ['meltSharpness', 'crystallinity', 'creepN', 'creepEa_kJmol'],
+    hdtHigh: ['crystallinity', 'meltSharpness', 'creepN', 'beta', 'tauTg_s'],
+    hdtLow: ['meltSharpness', 'crystallinity', 'creepN', 'creepEa_kJmol', 'beta', 'tauTg_s'],
     modulus: ['creepN', 'creepEa_kJmol', 'crystallinity', 'beta'],
   },
   crosslinked: {
@@ -412,7 +414,7 @@ const PROBE = 0.02;
 /** Smallest change of a scaled residual over the whole search range that counts as "moves the input". */
 const MIN_EFFECT = 0.2;
 /** Smallest share of a new column that must lie outside the span of the columns already chosen. */
-const MIN_INDEPENDENCE = 0.05;
+const MIN_INDEPENDENCE = 0.02;
 
 function chooseFree(
   fits: readonly FitInput[],

@@ -44,6 +44,11 @@ export const LSQ_GTOL = 1e-3;
 /** Iterations per round of the package, and the total cap. */
 export const LSQ_ROUND = 8;
 export const LSQ_MAX_ITER = 120;
+/** Half-width of the box (in u, a fraction of each search range) that one round may move within. */
+export const LSQ_BOX = 0.15;
+/** Grid of starting points per axis (in u) and the most parameters it is used for. */
+export const LSQ_SCAN: readonly number[] = [0.1, 0.3, 0.5, 0.7, 0.9];
+export const LSQ_SCAN_MAX_PARAMS = 3;
 /** Relative fall of the sum of squares per round below which the iteration has stalled. */
 export const LSQ_STALL = 1e-7;
 /** Finite-difference step on u in [0, 1]. */
@@ -90,9 +95,9 @@ export function boundedLeastSquares(
     if (r.length !== count || r.some((x) => !Number.isFinite(x))) return new Array<number>(Math.max(count, 1)).fill(PENALTY);
     return r;
   };
-  let u = params.map((p) => toU(p, Math.min(p.max, Math.max(p.min, p.start))));
-  let r = safe(u);
-  const m = r.length;
+  const u0 = params.map((p) => toU(p, Math.min(p.max, Math.max(p.min, p.start))));
+  const r0 = safe(u0);
+  const m = r0.length;
   // The package needs at least two data points; a zero residual is appended when there is one.
   const n = Math.max(m, 2);
   const x = Array.from({ length: n }, (_, i) => i);
@@ -104,51 +109,91 @@ export function boundedLeastSquares(
     const rr = cache.r;
     return (i: number): number => rr[i] ?? 0;
   };
-  const sumsq = (rr: readonly number[]): number => rr.reduce((s, v) => s + v * v, 0);
-  let cost = sumsq(r);
-  let iterations = 0;
-  let reason: LsqReason = 'iteration-cap';
-  // The package takes every step, good or bad, and keeps the best point seen; a round that finds no
-  // better point is retried with heavier damping (shorter, more gradient-like steps).
-  let level = 0;
-  while (iterations < LSQ_MAX_ITER) {
-    if (cost <= costTol) {
-      reason = 'exact';
-      break;
+  const sumsq = (rr: readonly number[]): number => rr.reduce((acc, v) => acc + v * v, 0);
+
+  const descend = (
+    start: number[],
+    startR: number[],
+  ): { u: number[]; r: number[]; cost: number; iterations: number; reason: LsqReason } => {
+    let u = start;
+    let r = startR;
+    let cost = sumsq(r);
+    let iterations = 0;
+    let reason: LsqReason = 'iteration-cap';
+    // The package takes every step, good or bad, and keeps the best point seen; a round that finds no
+    // better point is retried with heavier damping (shorter, more gradient-like steps).
+    let level = 0;
+    while (iterations < LSQ_MAX_ITER) {
+      if (cost <= costTol) {
+        reason = 'exact';
+        break;
+      }
+      const out = levenbergMarquardt({ x, y }, model, {
+        initialValues: u,
+        // A moving box around the current point keeps one round from wandering far on a bad model step.
+        minValues: u.map((v) => Math.max(0, v - LSQ_BOX)),
+        maxValues: u.map((v) => Math.min(1, v + LSQ_BOX)),
+        gradientDifference: LSQ_STEP,
+        maxIterations: LSQ_ROUND,
+        errorTolerance: costTol,
+        damping: LSQ_DAMPING[level] ?? 1,
+      });
+      iterations += out.iterations;
+      const next = out.parameterValues.map((v) => Math.min(1, Math.max(0, v)));
+      const rNext = safe(next);
+      const cNext = sumsq(rNext);
+      const fall = cost - cNext;
+      if (cNext < cost) {
+        u = next;
+        r = rNext;
+        cost = cNext;
+      }
+      if (cost <= costTol) {
+        reason = 'exact';
+        break;
+      }
+      if (fall > LSQ_STALL * cost) {
+        level = Math.max(0, level - 1);
+        continue;
+      }
+      if (fall > 0 || level + 1 >= LSQ_DAMPING.length) {
+        reason = 'stalled';
+        break;
+      }
+      level++;
     }
-    const out = levenbergMarquardt({ x, y }, model, {
-      initialValues: u,
-      minValues: params.map(() => 0),
-      maxValues: params.map(() => 1),
-      gradientDifference: LSQ_STEP,
-      maxIterations: LSQ_ROUND,
-      errorTolerance: costTol,
-      damping: LSQ_DAMPING[level] ?? 1,
-    });
-    iterations += out.iterations;
-    const next = out.parameterValues.map((v) => Math.min(1, Math.max(0, v)));
-    const rNext = safe(next);
-    const cNext = sumsq(rNext);
-    const fall = cost - cNext;
-    if (cNext < cost) {
-      u = next;
-      r = rNext;
-      cost = cNext;
+    return { u, r, cost, iterations, reason };
+  };
+
+  // Models with regime changes (an HDT that moves from the glass transition to the melting range) have
+  // more than one basin: a coarse grid of starts (LSQ_SCAN per axis, up to LSQ_SCAN_MAX_PARAMS
+  // parameters) picks the most promising one, and the better of the two descents is kept.
+  let best = descend(u0, r0);
+  let iterations = best.iterations;
+  if (best.cost > costTol && params.length <= LSQ_SCAN_MAX_PARAMS) {
+    let gridBest: { u: number[]; r: number[]; cost: number } | null = null;
+    const total = LSQ_SCAN.length ** params.length;
+    for (let k = 0; k < total; k++) {
+      let rest = k;
+      const uu = params.map(() => {
+        const v = LSQ_SCAN[rest % LSQ_SCAN.length] ?? 0.5;
+        rest = Math.floor(rest / LSQ_SCAN.length);
+        return v;
+      });
+      const rr = safe(uu);
+      const c = sumsq(rr);
+      if (!gridBest || c < gridBest.cost) gridBest = { u: uu, r: rr, cost: c };
     }
-    if (cost <= costTol) {
-      reason = 'exact';
-      break;
+    if (gridBest) {
+      const other = descend(gridBest.u, gridBest.r);
+      iterations += other.iterations;
+      if (other.cost < best.cost) best = other;
     }
-    if (fall > LSQ_STALL * cost) {
-      level = Math.max(0, level - 1);
-      continue;
-    }
-    if (fall > 0 || level + 1 >= LSQ_DAMPING.length) {
-      reason = 'stalled';
-      break;
-    }
-    level++;
   }
+  const u = best.u;
+  const r = best.r;
+  const cost = best.cost;
+  let reason = best.reason;
   // First-order check at the answer: projected gradient J^T r against |J| |r|.
   const J: number[][] = params.map((_, j) => {
     const h = u[j]! >= 1 - LSQ_STEP ? -LSQ_STEP : LSQ_STEP;
