@@ -1,5 +1,6 @@
 /** Benchmarks: medians over many runs, with ratios measured in the same run. `--json` prints one object. */
 import { compileMaterial, getFamily, maxTemperatureK, modulusMPa, shiftLog10 } from '../src/index.js';
+import { calibrationBench } from './calibration.js';
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -37,6 +38,7 @@ const result = {
   wlf_floor_ns: wlfFloor,
   modulus_to_floor_ratio: modulusEval / wlfFloor,
   maxtemp_us: maxtempUs,
+  ...calibrationBench(),
 };
 
 if (process.argv.includes('--json')) {
@@ -48,4 +50,8 @@ if (process.argv.includes('--json')) {
   console.log(`modulus evaluation, semi-crystalline (PA66-cond): ${modulusSemi.toFixed(1)} ns`);
   console.log(`ratio modulus / floor: ${result.modulus_to_floor_ratio.toFixed(2)}  (target < 5)`);
   console.log(`maxtemp solve: ${maxtempUs.toFixed(2)} us  (target < 20 us)`);
+  console.log(`datasheet calibration (PBT: E23, HDT/A, HDT/B, Tg, Tm): ${result.datasheet_calibration_ms.toFixed(1)} ms  (target < 50 ms)`);
+  console.log(
+    `master curve 5 x 50 points + WLF + ${result.prony_terms}-term Prony: ${result.master_curve_prony_ms.toFixed(1)} ms  (target < 500 ms)`,
+  );
 }

@@ -18,6 +18,8 @@ const corners = new WeakMap<MaterialParams, readonly Material[]>();
 function cornerMaterials(m: Material): readonly Material[] {
   const cached = corners.get(m.params);
   if (cached) return cached;
+  // A Prony material carries no ranges: its band is the central value.
+  if (m.prony) return [];
   const p = m.params;
   const pick = (lo: number | null, mid: number | null, hi: number | null): (number | null)[] =>
     mid === null ? [null] : [...new Set([lo ?? mid, hi ?? mid])];

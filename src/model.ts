@@ -14,10 +14,13 @@
  *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
  * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
  * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
+ * A Prony-series material (pronymaterial.ts, fitted from test curves) is evaluated by the same entry
+ * points: E = E_inf + sum E_i exp(-xi / tau_i), with its own shift law.
  */
 import { ParameterError } from './errors.js';
 import type { Kind, MaterialParams } from './params.js';
 import { validateParams } from './params.js';
+import { pronyModulusMPa, pronyGlassyMPa, type PronySeries } from './prony.js';
 import { brentRoot } from './roots.js';
 import { arrheniusLog10, GAS_CONSTANT, shiftLog10, type ShiftConstants } from './shift.js';
 import { KELVIN_OFFSET } from './units.js';
@@ -59,6 +62,11 @@ export interface Material {
   readonly melt23: number;
   /** 3 rho R / Mc in MPa per kelvin (crosslinked), else 0. */
   readonly networkMPaPerK: number;
+  /**
+   * A Prony-series material (pronymaterial.ts): E = Prony(xi), relaxation times at the shift reference
+   * temperature; null for the four-region model.
+   */
+  readonly prony: PronySeries | null;
 }
 
 /** Contributions behind one evaluation, for the region and for tests. */
@@ -104,6 +112,7 @@ function build(p: MaterialParams, EgMPa: number): Material {
     meltSharpness: p.meltSharpness,
     melt23: p.Tm_C === null ? 0 : (T23_K / (p.Tm_C + KELVIN_OFFSET)) ** p.meltSharpness,
     networkMPaPerK: p.kind === 'crosslinked' ? (3 * p.density_kgm3 * GAS_CONSTANT) / p.Mc_kgmol / 1e6 : 0,
+    prony: null,
   };
 }
 
@@ -159,6 +168,7 @@ export function creepRate(m: Material, TK: number): number {
  * with the time-independent parts (melting, network) taken at T (K).
  */
 export function evaluateReduced(m: Material, xi: number, theta: number, TK: number): Evaluation {
+  if (m.prony) return evaluateProny(m.prony, xi);
   const x = xi / m.tauTg;
   const G = Math.exp(-(x ** m.beta));
   const g = m.creepN === 0 ? 1 : (1 + theta) ** -m.creepN;
@@ -199,4 +209,18 @@ export function evaluateReduced(m: Material, xi: number, theta: number, TK: numb
               ? 'rubbery'
               : 'flow';
   return { modulusMPa: E, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: remaining };
+}
+
+/**
+ * A Prony material at reduced time xi. Region from the relaxed share of the series: glassy while at
+ * most a tenth of E_g - E_inf has relaxed, rubbery once within a factor 2 of E_inf > 0, flow once
+ * below a thousandth of E_g without E_inf, transition otherwise (set here).
+ */
+function evaluateProny(p: PronySeries, xi: number): Evaluation {
+  const E = pronyModulusMPa(p, xi);
+  const Eg = pronyGlassyMPa(p);
+  const share = Eg > p.EinfMPa ? (E - p.EinfMPa) / (Eg - p.EinfMPa) : 1;
+  const region: Region =
+    share >= 0.9 ? 'glassy' : p.EinfMPa > 0 && E <= 2 * p.EinfMPa ? 'rubbery' : p.EinfMPa === 0 && E < 1e-3 * Eg ? 'flow' : 'transition';
+  return { modulusMPa: E, region, glassFraction: share, flowFraction: 1, creepFactor: 1, crystalRemaining: 0 };
 }

@@ -3,14 +3,18 @@ import { ParameterError } from './errors.js';
 import { getFamily } from './families.js';
 import { compileMaterial, type Material } from './model.js';
 import { KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
+import { compilePronyMaterial, isPronySpec, isPronyTable, pronyFromTable, type PronyMaterialSpec } from './pronymaterial.js';
+import { InputError } from './errors.js';
 import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
 
-/** A family id (case-insensitive) or a parameter record. */
-export type MaterialInput = string | MaterialParams;
+/** A family id (case-insensitive), a parameter record, or a Prony-series material. */
+export type MaterialInput = string | MaterialParams | PronyMaterialSpec;
 
-/** Compiles a family id or a parameter record into a material. */
+/** Compiles a family id, a parameter record or a Prony material into a material. */
 export function resolveMaterial(input: MaterialInput): Material {
-  return compileMaterial(typeof input === 'string' ? getFamily(input).params : input);
+  if (typeof input === 'string') return compileMaterial(getFamily(input).params);
+  if (isPronySpec(input)) return compilePronyMaterial(input);
+  return compileMaterial(input);
 }
 
 const KNOWN_KEYS = new Set<string>([...TEXT_FIELDS, ...NUMERIC_FIELDS.map((f) => f.key)]);
@@ -64,4 +68,25 @@ export function paramsToRecord(p: MaterialParams): Record<string, string | numbe
   for (const k of TEXT_FIELDS) out[k] = p[k];
   for (const f of NUMERIC_FIELDS) out[f.key] = p[f.key];
   return out;
+}
+
+/**
+ * A material from a worksheet range (rows of cells): a Prony table (first cell 'prony', see
+ * pronymaterial.ts) or a parameter block of key / value rows (paramsToRecord order or any order).
+ * Wholly empty rows are skipped; a row that is not a key and a value is an error naming the row.
+ */
+export function materialInputFromRange(rows: readonly (readonly unknown[])[]): MaterialInput {
+  if (isPronyTable(rows)) return pronyFromTable(rows);
+  const record: Record<string, unknown> = {};
+  rows.forEach((r, i) => {
+    const cells = r.map((c) => (typeof c === 'string' ? c.trim() : c));
+    if (cells.every((c) => c === null || c === undefined || c === '')) return;
+    const [key, value, ...extra] = cells;
+    if (typeof key !== 'string' || key === '' || extra.some((c) => !(c === null || c === undefined || c === ''))) {
+      throw new InputError('material', `row ${i + 1} of the parameter block must be a name and a value`);
+    }
+    if (key in record) throw new InputError('material', `row ${i + 1}: '${key}' appears twice in the parameter block`);
+    record[key] = value;
+  });
+  return paramsFromRecord(record);
 }

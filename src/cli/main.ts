@@ -11,6 +11,9 @@ import {
   equivalentTimeS,
   FAMILIES,
   InputError,
+  isPronySpec,
+  pronyToRecord,
+  pronyToTable,
   kelvinToC,
   maxTemperatureK,
   maxTimeS,
@@ -33,6 +36,7 @@ import {
 import { csvTable, markdownTable, sig } from './format.js';
 import { runDemo } from './demo.js';
 import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
+import { CALIBRATION_COMMANDS, materialInputFrom } from './calibration.js';
 
 export interface Out {
   write(text: string): unknown;
@@ -68,6 +72,8 @@ function materialFrom(v: Values): Material {
 }
 
 function materialInput(v: Values): MaterialInput {
+  // Parameter records and Prony records (calibration.ts reads both).
+  if (typeof v['params'] === 'string' && typeof v['family'] !== 'string') return materialInputFrom(v);
   const family = v['family'];
   const file = v['params'];
   if (typeof family === 'string' && typeof file === 'string') throw new InputError('--family', 'give --family or --params, not both');
@@ -135,7 +141,13 @@ const COMMANDS: Record<string, Command> = {
     usage: 'resin-derate params --family ID [--json]',
     options: { ...material, ...json },
     run(v, out) {
-      const m = materialFrom(v);
+      const input = materialInput(v);
+      if (isPronySpec(input)) {
+        const rows = pronyToTable(input);
+        emit(out, v, pronyToRecord(input), rows.map((r) => r.map((c) => String(c)).join('\t')).join('\n') + '\n');
+        return;
+      }
+      const m = resolveMaterial(input);
       const rec = paramsToRecord(m.params);
       const text = Object.entries(rec)
         .map(([k, x]) => `${k.padEnd(18)} ${x === null ? '' : String(x)}`)
@@ -322,6 +334,7 @@ const COMMANDS: Record<string, Command> = {
       out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
     },
   },
+  ...CALIBRATION_COMMANDS,
   demo: {
     summary: 'run the bundled demo scenario (invented): print its derating review and write it as a workbook of DERATE formulas',
     usage: `resin-derate demo [--workbook ${DEMO_WORKBOOK_PATH}]`,

@@ -1,0 +1,168 @@
+import { describe, expect, it } from 'vitest';
+import {
+  calibrateDatasheet,
+  calibrationCheckRows,
+  compileMaterial,
+  creepModulusMPa,
+  DATASHEET_TIME_S,
+  getFamily,
+  HDT_METHODS,
+  KELVIN_OFFSET,
+  maxTemperatureK,
+  modulusMPa,
+  simulateHdt,
+  T23_K,
+  type MaterialParams,
+} from '../src/index.js';
+import { expectClose } from './expect.js';
+
+const K = KELVIN_OFFSET;
+const ROUND = 'synthetic round trip: datasheet numbers computed from known parameters, calibrated back';
+
+/** The datasheet a known record would have. */
+function datasheetOf(p: MaterialParams) {
+  const m = compileMaterial(p);
+  return {
+    modulus23MPa: modulusMPa(m, DATASHEET_TIME_S, T23_K),
+    hdt: [HDT_METHODS.A, HDT_METHODS.B].map((s) => ({ stressMPa: s, temperatureK: (simulateHdt(m, s).temperatureC ?? NaN) + K })),
+    TgK: p.Tg_C + K,
+    ...(p.Tm_C !== null ? { TmK: p.Tm_C + K } : {}),
+  };
+}
+
+describe('datasheet calibration round trips', () => {
+  it('recovers tauTg and beta of an amorphous grade from E23, HDT/A, HDT/B and Tg', () => {
+    const truth: MaterialParams = {
+      ...getFamily('PC').params,
+      Tg_C: 150,
+      Tg_low_C: null,
+      Tg_high_C: null,
+      tauTg_s: 3,
+      beta: 0.3,
+      E23_MPa: 2400,
+    };
+    const r = calibrateDatasheet('PC', datasheetOf(truth));
+    expect(r.converged).toBe(true);
+    expect(r.quality).toBe('good');
+    expect(r.free.map((f) => f.field)).toEqual(['tauTg_s', 'beta']);
+    expectClose(r.params.tauTg_s, 3, { rel: 0.02, source: ROUND });
+    expectClose(r.params.beta, 0.3, { abs: 0.003, source: ROUND });
+    expectClose(r.params.Tg_C, 150, { abs: 1e-9, source: ROUND });
+    for (const x of r.residuals) expect(Math.abs(x.difference ?? Infinity)).toBeLessThan(0.01 * (x.unit === 'MPa' ? x.given : 1) + 0.01);
+  });
+  it('recovers crystallinity and melt sharpness of a semi-crystalline grade from HDT/A and HDT/B', () => {
+    const truth: MaterialParams = { ...getFamily('PBT').params, crystallinity: 0.3, meltSharpness: 9, E23_MPa: 2600 };
+    const r = calibrateDatasheet('PBT', datasheetOf(truth));
+    expect(r.quality).toBe('good');
+    expect(r.free.map((f) => f.field)).toEqual(['crystallinity', 'meltSharpness']);
+    expectClose(r.params.crystallinity, 0.3, { abs: 0.002, source: ROUND });
+    expectClose(r.params.meltSharpness, 9, { rel: 0.01, source: ROUND });
+  });
+  it('recovers the slow-creep exponent from a 1000 h creep modulus at 23 degC', () => {
+    const truth: MaterialParams = { ...getFamily('PA66-cond').params, creepN: 0.045 };
+    const Ec = creepModulusMPa(compileMaterial(truth), 3.6e6, T23_K);
+    const r = calibrateDatasheet('PA66-cond', { moduli: [{ kind: 'creep', timeS: 3.6e6, temperatureK: T23_K, modulusMPa: Ec }] });
+    expect(r.free.map((f) => f.field)).toEqual(['creepN']);
+    expectClose(r.params.creepN, 0.045, { abs: 2e-4, source: ROUND });
+  });
+  it('reproduces typical PC datasheet numbers (E23 2400, HDT/A 132, HDT/B 142, Tg 147; from memory) within their tolerances', () => {
+    const r = calibrateDatasheet('PC', {
+      modulus23MPa: 2400,
+      hdt: [
+        { stressMPa: 1.8, temperatureK: 132 + K },
+        { stressMPa: 0.45, temperatureK: 142 + K },
+      ],
+      TgK: 147 + K,
+    });
+    expect(r.quality).toBe('good');
+    for (const x of r.residuals) expect(x.within).toBe(true);
+    // The record works with every function.
+    const m = compileMaterial(r.params);
+    expect(maxTemperatureK(m, 800, 3.6e6).status).toBe('found');
+    expectClose(simulateHdt(m, 1.8).temperatureC ?? NaN, 132, { abs: 0.05, source: 'typical PC HDT/A (from memory), as calibrated' });
+  });
+  it('moves the band ranges with their centre', () => {
+    const r = calibrateDatasheet('PC', { TgK: 150 + K, modulus23MPa: 2500 });
+    const f = getFamily('PC').params;
+    expectClose(r.params.Tg_low_C ?? NaN, (f.Tg_low_C ?? NaN) + 3, { abs: 1e-9, source: 'range shifted with Tg (set here)' });
+    expectClose(r.params.E23_high_MPa ?? NaN, ((f.E23_high_MPa ?? NaN) * 2500) / 2350, {
+      rel: 1e-9,
+      source: 'range scaled with E23 (set here)',
+    });
+    expect(r.iterations).toBe(0);
+  });
+  it('reports an input the model cannot reach as poor, with the parameter at its bound', () => {
+    // An HDT/A 60 K below Tg: beyond what tauTg and beta can do for this model.
+    const r = calibrateDatasheet('PC', { TgK: 147 + K, hdt: [{ stressMPa: 1.8, temperatureK: 60 + K }] });
+    expect(r.quality).toBe('poor');
+    expect(r.free.some((f) => f.atBound)).toBe(true);
+    expect(r.notes.join(' ')).toMatch(/bound/);
+  });
+});
+
+describe('datasheet calibration of networks and the check table', () => {
+  it('sets Mc of a rubber from its 23 degC modulus: E = 3 rho R T / Mc', () => {
+    const r = calibrateDatasheet('EPDM', { modulus23MPa: 5 });
+    expect(r.free.map((f) => f.field)).toEqual(['Mc_kgmol']);
+    const expected = (3 * 860 * 8.314462618 * T23_K) / 5e6;
+    expectClose(r.params.Mc_kgmol, expected, {
+      rel: 0.002,
+      source: 'affine network E = 3 rho R T / Mc (Flory 1953; Treloar 1975), rho 860 kg/m3',
+    });
+  });
+  it('gives one check row per input', () => {
+    const r = calibrateDatasheet('PC', { modulus23MPa: 2400, TgK: 147 + K });
+    const rows = calibrationCheckRows(r);
+    expect(rows[0]).toEqual(['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through']);
+    expect(rows.length).toBe(3);
+  });
+});
+
+describe('datasheet calibration refusals', () => {
+  it('refuses Tm for an amorphous family', () => {
+    expect(() => calibrateDatasheet('PC', { TmK: 500 })).toThrow(/Tm: is only used for semi-crystalline/);
+  });
+  it('refuses no inputs at all', () => {
+    expect(() => calibrateDatasheet('PC', {})).toThrow(/at least one datasheet input/);
+  });
+  it('refuses more free parameters than fitted inputs, naming the inputs', () => {
+    expect(() => calibrateDatasheet('PC', { hdt: [{ stressMPa: 1.8, temperatureK: 140 + K }] }, { free: ['beta', 'tauTg_s'] })).toThrow(
+      /2 parameters \(beta, tauTg_s\) cannot be determined by 1 fitted input \(HDT 1.8 MPa\)/,
+    );
+  });
+  it('refuses a parameter the inputs do not move (crystallinity of PP from HDT)', () => {
+    expect(() => calibrateDatasheet('PP', { hdt: [{ stressMPa: 1.8, temperatureK: 60 + K }] }, { free: ['crystallinity'] })).toThrow(
+      /HDT 1.8 MPa do not move crystallinity/,
+    );
+  });
+  it('refuses to fit a parameter that an input sets directly', () => {
+    expect(() => calibrateDatasheet('PC', { TgK: 420, hdt: [{ stressMPa: 1.8, temperatureK: 410 }] }, { free: ['Tg_C'] })).toThrow(
+      /Tg_C is set directly by the input Tg/,
+    );
+  });
+  it('refuses a Prony material as the start', () => {
+    const spec = {
+      id: 'p',
+      name: '',
+      referenceC: 100,
+      prony: { EinfMPa: 1, terms: [{ EMPa: 10, tauS: 1 }] },
+      shiftLaw: 'arrhenius' as const,
+      TgC: null,
+      C1: null,
+      C2K: null,
+      EakJmol: 100,
+    };
+    expect(() => calibrateDatasheet(spec, { TgK: 400 })).toThrow(/Prony material cannot be calibrated/);
+  });
+  it('refuses a negative modulus and repeated stresses', () => {
+    expect(() => calibrateDatasheet('PC', { modulus23MPa: -5 })).toThrow(/modulus23: must be a positive/);
+    expect(() =>
+      calibrateDatasheet('PC', {
+        hdt: [
+          { stressMPa: 1.8, temperatureK: 400 },
+          { stressMPa: 1.8, temperatureK: 401 },
+        ],
+      }),
+    ).toThrow(/two HDT values/);
+  });
+});
