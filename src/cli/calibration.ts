@@ -3,8 +3,7 @@
  * (relaxation or creep curves -> master curve, shift law, Prony table), dmafit (DMA sweep -> parameters)
  * and creepmod (apparent creep modulus). Registered into the command table of main.ts.
  */
-import { readFileSync, writeFileSync } from 'node:fs';
-import type { ParseArgsConfig } from 'node:util';
+import { writeFileSync } from 'node:fs';
 import {
   calibrateDatasheet,
   creepModulusMPa,
@@ -12,17 +11,14 @@ import {
   fitDma,
   HDT_METHODS,
   InputError,
-  isPronyRecord,
   kelvinToC,
   localSlope,
   modulusMPa,
-  paramsFromRecord,
   paramsToRecord,
   parseCsv,
   parseStressMPa,
   parseTemperatureK,
   parseTimeS,
-  pronyFromRecord,
   pronyToRecord,
   pronyToTable,
   readCurveTable,
@@ -30,77 +26,15 @@ import {
   resolveMaterial,
   type DatasheetInputs,
   type HdtDatum,
-  type MaterialInput,
   type ModulusDatum,
   type NumericField,
 } from '../index.js';
 import { csvTable, markdownTable, sig } from './format.js';
-import type { Out } from './main.js';
+import { emit, json, material, materialInputFrom, opt, readText, str, type Command, type Values } from './command.js';
 import { inventedDmaCsv, inventedRelaxationCsv } from './demodata.js';
-
-type Options = NonNullable<ParseArgsConfig['options']>;
-type Values = Record<string, string | boolean | undefined>;
-
-interface Command {
-  readonly summary: string;
-  readonly usage: string;
-  readonly options: Options;
-  run(v: Values, out: Out): void;
-}
 
 const CAUTION =
   'Screening estimates only: a calibrated or fitted record reproduces the numbers it was given, not the part. Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code and defer to licensed engineering review for parts whose failure can hurt someone.';
-
-const material: Options = { family: { type: 'string' }, params: { type: 'string' } };
-const json: Options = { json: { type: 'boolean' } };
-
-function str(v: Values, key: string): string {
-  const x = v[key];
-  if (typeof x !== 'string' || x.trim() === '') throw new InputError(`--${key}`, 'is required');
-  return x;
-}
-
-function opt(v: Values, key: string): string | undefined {
-  const x = v[key];
-  return typeof x === 'string' && x.trim() !== '' ? x : undefined;
-}
-
-function readText(file: string, argument: string): string {
-  try {
-    return readFileSync(file, 'utf8');
-  } catch (e) {
-    throw new InputError(argument, `cannot read '${file}': ${(e as Error).message}`);
-  }
-}
-
-/** --family ID or --params FILE.json (a parameter record or a Prony record). */
-export function materialInputFrom(v: Values): MaterialInput {
-  const family = opt(v, 'family');
-  const file = opt(v, 'params');
-  if (family && file) throw new InputError('--family', 'give --family or --params, not both');
-  if (file) {
-    let record: unknown;
-    try {
-      record = JSON.parse(readText(file, '--params'));
-    } catch (e) {
-      if (e instanceof InputError) throw e;
-      throw new InputError('--params', `cannot read JSON from '${file}': ${(e as Error).message}`);
-    }
-    if (typeof record !== 'object' || record === null || Array.isArray(record)) {
-      throw new InputError('--params', `'${file}' must hold one JSON object of parameters`);
-    }
-    const r = record as Record<string, unknown>;
-    // A calibration or fit output file carries the record under "params" / "material".
-    const inner = (r['params'] ?? r['material'] ?? r) as Record<string, unknown>;
-    return isPronyRecord(inner) ? pronyFromRecord(inner) : paramsFromRecord(inner);
-  }
-  if (family) return family;
-  throw new InputError('--family', 'is required (a family id such as PC, or --params FILE.json)');
-}
-
-function emit(out: Out, v: Values, data: object, text: string): void {
-  out.write(v['json'] ? JSON.stringify(data, null, 2) + '\n' : text);
-}
 
 function writeOut(v: Values, data: object): string {
   const file = opt(v, 'out');

@@ -1,6 +1,5 @@
 /** The `resin-derate` command line: the engine's answers as text tables or JSON. */
-import { readFileSync } from 'node:fs';
-import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { parseArgs } from 'node:util';
 import {
   apparentTgK,
   bandEstimate,
@@ -19,7 +18,6 @@ import {
   maxTimeS,
   modulusAfterHistory,
   ParameterError,
-  paramsFromRecord,
   paramsToRecord,
   parseStressMPa,
   parseTemperatureK,
@@ -31,66 +29,20 @@ import {
   UnknownFamilyError,
   type InverseAnswer,
   type Material,
-  type MaterialInput,
 } from '../index.js';
 import { csvTable, markdownTable, sig } from './format.js';
 import { runDemo } from './demo.js';
 import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
-import { CALIBRATION_COMMANDS, materialInputFrom } from './calibration.js';
+import { CALIBRATION_COMMANDS } from './calibration.js';
+import { emit, json, material, materialInputFrom, str, type Command, type Out, type Values } from './command.js';
 
-export interface Out {
-  write(text: string): unknown;
-}
-
-type Options = NonNullable<ParseArgsConfig['options']>;
-type Values = Record<string, string | boolean | undefined>;
-
-interface Command {
-  readonly summary: string;
-  readonly usage: string;
-  readonly options: Options;
-  run(v: Values, out: Out): void | Promise<void>;
-}
+export type { Out } from './command.js';
 
 const CAUTION =
   'Screening estimates only: confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code and defer to licensed engineering review for parts whose failure can hurt someone.';
 
-const material: Options = {
-  family: { type: 'string' },
-  params: { type: 'string' },
-};
-const json: Options = { json: { type: 'boolean' } };
-
-function str(v: Values, key: string): string {
-  const x = v[key];
-  if (typeof x !== 'string' || x.trim() === '') throw new InputError(`--${key}`, 'is required');
-  return x;
-}
-
 function materialFrom(v: Values): Material {
-  return resolveMaterial(materialInput(v));
-}
-
-function materialInput(v: Values): MaterialInput {
-  // Parameter records and Prony records (calibration.ts reads both).
-  if (typeof v['params'] === 'string' && typeof v['family'] !== 'string') return materialInputFrom(v);
-  const family = v['family'];
-  const file = v['params'];
-  if (typeof family === 'string' && typeof file === 'string') throw new InputError('--family', 'give --family or --params, not both');
-  if (typeof file === 'string') {
-    let record: unknown;
-    try {
-      record = JSON.parse(readFileSync(file, 'utf8'));
-    } catch (e) {
-      throw new InputError('--params', `cannot read JSON from '${file}': ${(e as Error).message}`);
-    }
-    if (typeof record !== 'object' || record === null || Array.isArray(record)) {
-      throw new InputError('--params', `'${file}' must hold one JSON object of parameters`);
-    }
-    return paramsFromRecord(record as Record<string, unknown>);
-  }
-  if (typeof family === 'string') return family;
-  throw new InputError('--family', 'is required (a family id such as PC, or --params FILE.json)');
+  return resolveMaterial(materialInputFrom(v));
 }
 
 function listOf(text: string, argument: string): string[] {
@@ -100,10 +52,6 @@ function listOf(text: string, argument: string): string[] {
     .filter((s) => s !== '');
   if (items.length === 0) throw new InputError(argument, 'needs a comma-separated list');
   return items;
-}
-
-function emit(out: Out, v: Values, data: object, text: string): void {
-  out.write(v['json'] ? JSON.stringify(data, null, 2) + '\n' : text);
 }
 
 function inverseText(a: InverseAnswer, above: string, below: string): string {
@@ -141,7 +89,7 @@ const COMMANDS: Record<string, Command> = {
     usage: 'resin-derate params --family ID [--json]',
     options: { ...material, ...json },
     run(v, out) {
-      const input = materialInput(v);
+      const input = materialInputFrom(v);
       if (isPronySpec(input)) {
         const rows = pronyToTable(input);
         emit(out, v, pronyToRecord(input), rows.map((r) => r.map((c) => String(c)).join('\t')).join('\n') + '\n');
