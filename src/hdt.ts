@@ -43,6 +43,8 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
   const clocks: Clocks = { xi: 0, theta: 0 };
   advanceClocks(m, clocks, T0, HDT_PRELOAD_S);
   const E0 = evaluateReduced(m, clocks.xi, clocks.theta, T0).modulusMPa;
+  // Fully relaxed during the preload (a melt or rubber at 23 degC): the strain criterion is met at the start.
+  if (!(E0 > 0)) return { temperatureC: HDT_START_C, endModulusMPa: 0, startModulusMPa: E0 };
   const Eend = stressMPa / (stressMPa / E0 + HDT_STRAIN_INCREASE);
   const dt = (HDT_STEP_K / heatingKPerH) * 3600;
   let Tprev = T0;
@@ -51,7 +53,9 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
     advanceClocks(m, clocks, T - HDT_STEP_K / 2, dt);
     const E = evaluateReduced(m, clocks.xi, clocks.theta, T).modulusMPa;
     if (E <= Eend) {
-      const f = (Math.log(Eprev) - Math.log(Eend)) / (Math.log(Eprev) - Math.log(E));
+      // Log-linear interpolation; where E did not change over the step (or fell to 0) take the step's start.
+      const span = Math.log(Eprev) - Math.log(E);
+      const f = span > 0 && Number.isFinite(span) ? Math.min(1, Math.max(0, (Math.log(Eprev) - Math.log(Eend)) / span)) : 0;
       return { temperatureC: Tprev + f * (T - Tprev) - KELVIN_OFFSET, endModulusMPa: Eend, startModulusMPa: E0 };
     }
     Tprev = T;
