@@ -27,7 +27,10 @@ type Pick = readonly [value: number | null, field: string | null];
 /** A corner that cannot be compiled or evaluated is reported against the range fields that make it. */
 function cornerError(e: unknown, label: string): never {
   if (!(e instanceof ParameterError || e instanceof InputError)) throw e;
-  const field = label.split(' = ')[0] || 'Tg_C';
+  const keys = label.split(', ').map((part) => part.split(' = ')[0] ?? '');
+  // An unreachable 23 degC modulus is charged to the E23 end of the range when this corner takes one.
+  const e23 = e instanceof ParameterError && e.field === 'E23_MPa' ? keys.find((k) => k.startsWith('E23_')) : undefined;
+  const field = e23 ?? (keys[0] || 'Tg_C');
   throw new ParameterError(field, `the band corner ${label} cannot be evaluated (${e.message}); narrow the range`);
 }
 

@@ -11,6 +11,8 @@ import {
   apparentTgK,
   bandEstimate,
   compileMaterial,
+  convertStressFromMPa,
+  deratingRatio,
   deratingTable,
   equivalentTimeS,
   evaluateClocks,
@@ -39,7 +41,9 @@ import {
   type MaterialParams,
 } from '../src/index.js';
 import {
+  anyText,
   familyIdText,
+  KNOWN_UNITS,
   looseRecord,
   modulusMPaArb,
   paramRecord,
@@ -484,6 +488,79 @@ describe('HDT and derating table', () => {
         },
       ),
       propertyParameters(100),
+    );
+  });
+  it('deratingTable and deratingRatio over drawn records: finite ratios, or an InputError when the reference is fully relaxed', () => {
+    fc.assert(
+      fc.property(
+        everywhereDefined,
+        fc.array(fc.double({ min: -150, max: 500, noNaN: true }), { minLength: 1, maxLength: 4 }),
+        timeS(),
+        (m, temps, t) => {
+          let rows;
+          try {
+            rows = deratingTable([m.params], temps, t);
+          } catch (e) {
+            expect(e).toBeInstanceOf(InputError);
+            expect((e as InputError).argument).toBe('reference');
+            expect(() => deratingRatio(m, t, (temps[0] ?? 23) + 273.15)).toThrow(InputError);
+            return;
+          }
+          for (const c of rows[0]?.cells ?? []) {
+            expectFinite(c.ratio, 'ratio');
+            expect(deratingRatio(m, t, c.temperatureC + 273.15)).toBe(c.ratio);
+          }
+        },
+      ),
+      propertyParameters(200),
+    );
+  });
+});
+
+describe('units out', () => {
+  it('convertStressFromMPa: finite, or an InputError naming the unit argument', () => {
+    fc.assert(
+      fc.property(modulusMPaArb(1e-6, 1e6), fc.oneof(fc.constantFrom(...KNOWN_UNITS.stress), anyText()), (x, unit) => {
+        let y: number;
+        try {
+          y = convertStressFromMPa(x, unit, 'unit');
+        } catch (e) {
+          expect(e).toBeInstanceOf(InputError);
+          expect((e as InputError).argument).toBe('unit');
+          return;
+        }
+        expectFinite(y, `convert ${x} MPa to '${unit}'`);
+        expect(y).toBeGreaterThan(0);
+      }),
+      propertyParameters(300),
+    );
+  });
+});
+
+describe('equivalent time over the whole span', () => {
+  it('finite and >= 0, or an InputError when it exceeds 1e308 s; never NaN or Infinity', () => {
+    fc.assert(
+      fc.property(
+        anyMaterial,
+        fc.array(fc.record({ TK: temperatureK(), dtS: timeS() }), { minLength: 1, maxLength: 8 }),
+        temperatureK(),
+        (m, segs, Tref) => {
+          let teq: number;
+          try {
+            teq = equivalentTimeS(m, segs, Tref, 3650);
+          } catch (e) {
+            expect(e).toBeInstanceOf(InputError);
+            const arg = (e as InputError).argument;
+            if (arg === 'temperature') expect(m.shift.law).toBe('wlf');
+            else expect(arg).toBe('reference_temperature');
+            return;
+          }
+          expectFinite(teq, 'equivalent time');
+          // A history far below a hot reference may underflow to 0 s (below 1e-308 s): the honest rounding.
+          expect(teq).toBeGreaterThanOrEqual(0);
+        },
+      ),
+      propertyParameters(300),
     );
   });
 });
