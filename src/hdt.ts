@@ -6,7 +6,8 @@
  * Strain under constant stress is taken as sigma / E_r (quasi-elastic); creep compliance is somewhat
  * larger, so the simulated HDT errs slightly high. ISO 75-1 says HDT results are not design data.
  */
-import { InputError } from './errors.js';
+import { InputError, ParameterError } from './errors.js';
+import { WLF_SINGULARITY_MARGIN_K } from './shift.js';
 import { advanceClocks, type Clocks } from './history.js';
 import { evaluateReduced, type Material } from './model.js';
 import { KELVIN_OFFSET } from './units.js';
@@ -40,6 +41,14 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
   if (!(heatingKPerH > 0) || !Number.isFinite(heatingKPerH))
     throw new InputError('heating', `must be a positive rate in K/h, got ${heatingKPerH}`);
   const T0 = HDT_START_C + KELVIN_OFFSET;
+  const c = m.shift;
+  if (c.law === 'wlf' && T0 - c.TrefK <= -c.C2K + WLF_SINGULARITY_MARGIN_K) {
+    throw new ParameterError(
+      'shiftLaw',
+      `the pure WLF law is undefined at the ${HDT_START_C} degC start of the HDT test (at or below Tg - C2 + ${WLF_SINGULARITY_MARGIN_K} K); use the hybrid law`,
+      c.law,
+    );
+  }
   const clocks: Clocks = { xi: 0, theta: 0 };
   advanceClocks(m, clocks, T0, HDT_PRELOAD_S);
   const E0 = evaluateReduced(m, clocks.xi, clocks.theta, T0).modulusMPa;

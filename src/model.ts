@@ -16,7 +16,7 @@
  * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
  * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
  */
-import { ParameterError } from './errors.js';
+import { InputError, ParameterError } from './errors.js';
 import type { Kind, MaterialParams } from './params.js';
 import { validateParams } from './params.js';
 import { brentRoot } from './roots.js';
@@ -144,6 +144,20 @@ function anchorGlassyModulus(base: Material, E23: number): Material {
   }
   const r = brentRoot((x) => at(x) / E23 - 1, lo, hi, 1e-12);
   return checkGlassy(build(base.params, 10 ** r.root));
+}
+
+/**
+ * Checks that the material's shift law is defined at T (K) (a pure WLF law is not at or below
+ * Tg - C2 + 1 K) and returns T; the error names `argument`, the input the temperature came from.
+ */
+export function checkTemperatureInDomain(m: Material, TK: number, argument: string): number {
+  try {
+    shiftLog10(m.shift, TK);
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(argument, e.problem);
+    throw e;
+  }
+  return TK;
 }
 
 /** Relaxation modulus (MPa) at time t (s) and temperature T (K). */

@@ -316,6 +316,59 @@ export function anyText(quantity?: Quantity): fc.Arbitrary<string> {
   );
 }
 
+/** A number as a person types it: a few significant figures, sometimes in exponent form. */
+function typed(x: number, digits: number): string {
+  return Number(x.toPrecision(digits)).toString();
+}
+
+/** Valid temperature text: bare degC, or degC / K / degF with a unit, over -100 to 400 degC. */
+export function validTemperatureText(): fc.Arbitrary<string> {
+  const c = fc.double({ min: -100, max: 400, noNaN: true });
+  return fc.oneof(
+    fc.tuple(c, fc.integer({ min: 2, max: 5 })).map(([x, d]) => typed(x, d)),
+    fc.tuple(c, fc.constantFrom(' degC', ' °C', '°C', ' C', ' degc')).map(([x, u]) => `${typed(x, 4)}${u}`),
+    c.map((x) => `${typed(x + 273.15, 5)} K`),
+    c.map((x) => `${typed(x * 1.8 + 32, 4)} degF`),
+  );
+}
+
+/** Valid duration text: bare hours or a number with a time unit, from about 10 ms to 1000 years. */
+export function validTimeText(): fc.Arbitrary<string> {
+  return fc.oneof(
+    logUniform(1e-5, 1e6).map((h) => typed(h, 3)),
+    fc
+      .tuple(logUniform(0.01, 1000), fc.constantFrom(' s', ' min', ' h', 'h', ' hours', ' d', ' days', ' week', ' y', ' years'))
+      .map(([x, u]) => `${typed(x, 3)}${u}`),
+  );
+}
+
+/** Valid modulus or stress text: bare MPa, MPa, GPa, psi or ksi, from 0.01 to 20000 MPa. */
+export function validStressText(): fc.Arbitrary<string> {
+  const mpa = logUniform(0.01, 20000);
+  return fc.oneof(
+    mpa.map((x) => typed(x, 3)),
+    mpa.map((x) => `${typed(x, 3)} MPa`),
+    mpa.map((x) => `${typed(x / 1000, 3)} GPa`),
+    mpa.map((x) => `${typed(x * 145.038, 3)} psi`),
+    mpa.map((x) => `${typed(x * 0.145038, 3)} ksi`),
+  );
+}
+
+/** Valid strain text: a fraction up to 0.1 or a percentage up to 10 %. */
+export function validStrainText(): fc.Arbitrary<string> {
+  const eps = logUniform(1e-5, 0.1);
+  return fc.oneof(
+    eps.map((x) => typed(x, 3)),
+    eps.map((x) => `${typed(x * 100, 3)} %`),
+  );
+}
+
+/** Valid text of a quantity with probability `share`, else anything (anyText). */
+export function mostlyValid(valid: fc.Arbitrary<string>, quantity?: Quantity, share = 0.85): fc.Arbitrary<string> {
+  const w = Math.round(share * 100);
+  return fc.oneof({ weight: w, arbitrary: valid }, { weight: 100 - w, arbitrary: anyText(quantity) });
+}
+
 // ---------------------------------------------------------------------------------------------
 // Cells and ranges
 // ---------------------------------------------------------------------------------------------

@@ -9,6 +9,7 @@ import {
   apparentTgK,
   bandEstimate,
   blankParams,
+  checkTemperatureInDomain,
   compileMaterial,
   deratingRatio,
   deratingTable,
@@ -362,5 +363,20 @@ describe('regressions found by the property tests', () => {
     const a = maxTemperatureK(m, 1, 1);
     expect(a.status).toBe('found');
     expectClose(modulusMPa(m, 1, a.value ?? NaN), 1, { rel: 1e-6, source: 'round trip of the inverse answer' });
+  });
+  it('HDT of a pure-WLF record undefined at the 23 degC start is a ParameterError on shiftLaw, not a temperature error', () => {
+    const p = { ...getFamily('PC').params, shiftLaw: 'wlf' as const, E23_MPa: null, Eg_MPa: 2400, E23_low_MPa: null, E23_high_MPa: null };
+    expect(() => simulateHdt(compileMaterial(p), 1.8)).toThrow(
+      /^parameter shiftLaw: the pure WLF law is undefined at the 23 degC start of the HDT test/,
+    );
+  });
+  it('a ratio whose 23 degC reference a pure-WLF law cannot reach names the reference', () => {
+    const p = { ...getFamily('PC').params, shiftLaw: 'wlf' as const, E23_MPa: null, Eg_MPa: 2400, E23_low_MPa: null, E23_high_MPa: null };
+    const m = compileMaterial(p);
+    expect(() => deratingRatio(m, 3600, 150 + C)).toThrow(/^reference: .* WLF singularity/);
+    expect(() => checkTemperatureInDomain(m, 50 + C, 'service_temp')).toThrow(
+      /^service_temp: 50.00 degC is at or below the WLF singularity/,
+    );
+    expect(checkTemperatureInDomain(m, 150 + C, 'service_temp')).toBe(150 + C);
   });
 });

@@ -5,6 +5,7 @@ import {
   apparentTgK,
   bandEstimate,
   checkStrain,
+  checkTemperatureInDomain,
   parseStrain,
   retainedStressMPa,
   deratingTable,
@@ -95,6 +96,17 @@ function listOf(text: string, argument: string): string[] {
   return items;
 }
 
+/** Runs an engine call whose InputErrors name engine arguments, renaming them to the CLI options they came from. */
+function renamed<T>(names: Readonly<Record<string, string>>, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    const to = e instanceof InputError ? names[e.argument] : undefined;
+    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
+    throw e;
+  }
+}
+
 function emit(out: Out, v: Values, data: object, text: string): void {
   out.write(v['json'] ? JSON.stringify(data, null, 2) + '\n' : text);
 }
@@ -148,7 +160,7 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const tS = parseTimeS(str(v, 'time'), '--time');
       const b = bandEstimate(m, tS, TK);
       const data = {
@@ -168,7 +180,7 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const log10aT = shiftLog10(m.shift, TK);
       const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
       emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
@@ -200,7 +212,7 @@ const COMMANDS: Record<string, Command> = {
     run(v, out) {
       const m = materialFrom(v);
       const req = parseStressMPa(str(v, 'modulus'), '--modulus');
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const a = maxTimeS(m, req, TK);
       const note = inverseText(a, 'beyond 100 years', 'never reached: below the required modulus already at 1 ms');
       emit(
@@ -239,13 +251,16 @@ const COMMANDS: Record<string, Command> = {
         if (T === undefined || t === undefined || extra !== undefined) {
           throw new InputError('--cycle', `segment ${i + 1} '${item}' must be TEMPERATURE:DURATION, such as '70 degC:8 h'`);
         }
-        return { TK: parseTemperatureK(T, '--cycle'), dtS: parseTimeS(t, '--cycle') };
+        return { TK: checkTemperatureInDomain(m, parseTemperatureK(T, '--cycle'), '--cycle'), dtS: parseTimeS(t, '--cycle') };
       });
       const cycles = v['cycles'] === undefined ? 1 : Number(v['cycles']);
       if (!Number.isFinite(cycles) || cycles <= 0)
         throw new InputError('--cycles', `must be a positive number, got '${String(v['cycles'])}'`);
-      const refK = v['ref'] === undefined ? Math.max(...segments.map((s) => s.TK)) : parseTemperatureK(str(v, 'ref'), '--ref');
-      const teq = equivalentTimeS(m, segments, refK, cycles);
+      const refK =
+        v['ref'] === undefined
+          ? Math.max(...segments.map((s) => s.TK))
+          : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
+      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
       const after = modulusAfterHistory(m, segments, cycles, refK);
       emit(
         out,
@@ -268,7 +283,7 @@ const COMMANDS: Record<string, Command> = {
     run(v, out) {
       const m = materialFrom(v);
       const strain = checkStrain(parseStrain(str(v, 'strain'), '--strain'), '--strain');
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const tS = parseTimeS(str(v, 'time'), '--time');
       const r = retainedStressMPa(m, strain, tS, TK);
       const warn = r.beyondLinearRange ? ' (strain above about 1 %: beyond the usual linear range, estimate likely high)' : '';
@@ -306,7 +321,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = parseTimeS(str(v, 'time'), '--time');
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = deratingTable(ids, temps, tS);
+      const rows = renamed({ reference: '--families', temperature: '--temps' }, () => deratingTable(ids, temps, tS));
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,
@@ -341,6 +356,7 @@ export async function main(argv: readonly string[], out: Out, err: Out): Promise
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     out.write(helpText());
+    if (name === undefined) err.write('resin-derate: a command is required; the commands are listed above\n');
     return name === undefined ? 1 : 0;
   }
   const command = COMMANDS[name];
