@@ -19,6 +19,7 @@ import {
   FAMILIES,
   InputError,
   MAX_TEMPERATURE_C,
+  MIN_TEMPERATURE_K,
   maxTemperatureK,
   maxTimeS,
   modulusAfterHistory,
@@ -98,7 +99,12 @@ const ROUND = 1e-12;
 
 describe('parsers: a finite number in engine units or an InputError naming the argument', () => {
   const cases = [
-    { name: 'parseTemperatureK', parse: parseTemperatureK, q: 'temperature', ok: (x: number) => x > 0 && x <= MAX_TEMPERATURE_C + 273.15 },
+    {
+      name: 'parseTemperatureK',
+      parse: parseTemperatureK,
+      q: 'temperature',
+      ok: (x: number) => x >= MIN_TEMPERATURE_K && x <= MAX_TEMPERATURE_C + 273.15,
+    },
     { name: 'parseTimeS', parse: parseTimeS, q: 'time', ok: (x: number) => x > 0 },
     { name: 'parseStressMPa', parse: parseStressMPa, q: 'stress', ok: (x: number) => x > 0 },
     { name: 'parseStrain', parse: parseStrain, q: undefined, ok: () => true },
@@ -125,7 +131,7 @@ describe('parsers: a finite number in engine units or an InputError naming the a
   }
   it('bare numbers and their text agree (degC, hours, MPa)', () => {
     fc.assert(
-      fc.property(fc.double({ min: -273, max: MAX_TEMPERATURE_C, noNaN: true }), (x) => {
+      fc.property(fc.double({ min: MIN_TEMPERATURE_K - 273.15, max: MAX_TEMPERATURE_C, noNaN: true }), (x) => {
         if (Object.is(x, -0)) return;
         expect(parseTemperatureK(String(x))).toBe(parseTemperatureK(x));
         if (x > 0) {
@@ -185,7 +191,7 @@ describe('modulus', () => {
       propertyParameters(400),
     );
   });
-  it('is finite at any temperature the parser accepts (above 0 K up to MAX_TEMPERATURE_C) and any time', () => {
+  it('is finite at any temperature the parser accepts (MIN_TEMPERATURE_K to MAX_TEMPERATURE_C), and down to the smallest double, at any time', () => {
     fc.assert(
       fc.property(
         everywhereDefined,

@@ -283,6 +283,9 @@ describe('extreme shifts: 10 ** x over- and underflow never give NaN', () => {
     expect(parseTemperatureK(MAX_TEMPERATURE_C)).toBe(MAX_TEMPERATURE_C + C);
     expect(() => parseTemperatureK('1e308 K', 'temp')).toThrow(/^temp: '1e308 K' is above 2000 degC/);
     expect(() => parseTemperatureK(1e308)).toThrow(/above 2000 degC/);
+    expect(parseTemperatureK('4.2 K')).toBe(4.2);
+    expect(() => parseTemperatureK('5e-324 kelvin', 'temp')).toThrow(/^temp: '5e-324 kelvin' is below 1 K, too close to absolute zero/);
+    expect(() => parseTemperatureK(-273.149)).toThrow(/below 1 K/);
   });
 });
 
