@@ -1,5 +1,14 @@
 /** Benchmarks: medians over many runs, with ratios measured in the same run. `--json` prints one object. */
-import { compileMaterial, getFamily, maxTemperatureK, modulusMPa, shiftLog10 } from '../src/index.js';
+import {
+  compileMaterial,
+  deratingTable,
+  equivalentTimeS,
+  FAMILIES,
+  getFamily,
+  maxTemperatureK,
+  modulusMPa,
+  shiftLog10,
+} from '../src/index.js';
 import { calibrationBench } from './calibration.js';
 
 function median(xs: number[]): number {
@@ -31,6 +40,14 @@ const modulusEval = timeNs((i) => modulusMPa(pc, times[i & 1023] ?? 1, temps[i &
 const modulusSemi = timeNs((i) => modulusMPa(pa, times[i & 1023] ?? 1, temps[i & 1023] ?? 300), 200_000);
 const maxtempUs = timeNs((i) => maxTemperatureK(pc, 500 + (i % 1000), 3.6e6).value ?? 0, 2_000) / 1000;
 
+// EQTIME over a 10,000-segment history (about a year of hourly readings, -20 to 100 degC) at 70 degC.
+const segments = Array.from({ length: 10_000 }, (_, i) => ({ TK: 253.15 + ((i * 37) % 120), dtS: 3600 }));
+const eqtimeUs = timeNs((i) => equivalentTimeS(pc, segments, 343.15 + (i % 2)), 20, 21) / 1000;
+// A 100 x 100 derating table through the engine: 100 material rows (the bundled families, repeated) x 100 temperatures.
+const tableIds = Array.from({ length: 100 }, (_, i) => FAMILIES[i % FAMILIES.length]?.params.id ?? 'PC');
+const tableTemps = Array.from({ length: 100 }, (_, i) => -40 + i * 2.4);
+const tableMs = timeNs((i) => deratingTable(tableIds, tableTemps, 3.6e6 + i).length, 3, 21) / 1e6;
+
 const result = {
   machine: `${process.platform} ${process.arch}, node ${process.version}`,
   modulus_eval_ns: modulusEval,
@@ -38,6 +55,12 @@ const result = {
   wlf_floor_ns: wlfFloor,
   modulus_to_floor_ratio: modulusEval / wlfFloor,
   maxtemp_us: maxtempUs,
+  eqtime_10k_segments_us: eqtimeUs,
+  eqtime_segment_ns: (eqtimeUs * 1000) / segments.length,
+  eqtime_segment_to_floor_ratio: (eqtimeUs * 1000) / segments.length / wlfFloor,
+  table_100x100_ms: tableMs,
+  table_cell_ns: (tableMs * 1e6) / 10_000,
+  table_cell_to_modulus_ratio: (tableMs * 1e6) / 10_000 / modulusEval,
   ...calibrationBench(),
 };
 
@@ -53,5 +76,11 @@ if (process.argv.includes('--json')) {
   console.log(`datasheet calibration (PBT: E23, HDT/A, HDT/B, Tg, Tm): ${result.datasheet_calibration_ms.toFixed(1)} ms  (target < 50 ms)`);
   console.log(
     `master curve 5 x 50 points + WLF + ${result.prony_terms}-term Prony: ${result.master_curve_prony_ms.toFixed(1)} ms  (target < 500 ms)`,
+  );
+  console.log(
+    `eqtime over 10,000 segments: ${eqtimeUs.toFixed(0)} us  (${result.eqtime_segment_ns.toFixed(1)} ns a segment, ${result.eqtime_segment_to_floor_ratio.toFixed(2)} x the floor)`,
+  );
+  console.log(
+    `derating table 100 x 100 through the engine: ${tableMs.toFixed(2)} ms  (${result.table_cell_ns.toFixed(0)} ns a cell, ${result.table_cell_to_modulus_ratio.toFixed(2)} x one modulus evaluation)`,
   );
 }

@@ -17,10 +17,10 @@
  * The two clocks are integrated over each temperature step with the logarithmic mean of their rates
  * (exact where log rate is linear in T); the step that crosses the end point is re-run in fine steps.
  */
-import { InputError } from './errors.js';
+import { InputError, ParameterError } from './errors.js';
 import { creepRate, evaluateReduced, type Material } from './model.js';
 import { powerLawProduct, localSlopeAtClocks } from './creep.js';
-import { shiftLog10 } from './shift.js';
+import { shiftLog10, WLF_SINGULARITY_MARGIN_K } from './shift.js';
 import { KELVIN_OFFSET } from './units.js';
 
 /** ISO 75-2 flexural stresses, MPa. */
@@ -80,11 +80,21 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
   if (!(heatingKPerH > 0) || !Number.isFinite(heatingKPerH))
     throw new InputError('heating', `must be a positive rate in K/h, got ${heatingKPerH}`);
   const T0 = HDT_START_C + KELVIN_OFFSET;
+  const c = m.shift;
+  if (c.law === 'wlf' && T0 - c.TrefK <= -c.C2K + WLF_SINGULARITY_MARGIN_K) {
+    throw new ParameterError(
+      'shiftLaw',
+      `the pure WLF law is undefined at the ${HDT_START_C} degC start of the HDT test (at or below Tg - C2 + ${WLF_SINGULARITY_MARGIN_K} K); use the hybrid law`,
+      c.law,
+    );
+  }
   const Tmax = HDT_MAX_C + KELVIN_OFFSET;
   const secondsPerK = 3600 / heatingKPerH;
   let [rXi, rTh] = rates(m, T0);
   const s: State = { xi: rXi * HDT_PRELOAD_S, theta: rTh * HDT_PRELOAD_S };
   const D0 = hdtCompliance(m, s.xi, s.theta, T0);
+  // Fully relaxed during the preload (a melt or rubber at 23 degC): the strain criterion is met at the start.
+  if (!Number.isFinite(D0)) return { temperatureC: HDT_START_C, endModulusMPa: 0, startModulusMPa: 1 / D0 };
   const Dend = D0 + HDT_STRAIN_INCREASE / stressMPa;
   const startModulusMPa = 1 / D0;
   const endModulusMPa = 1 / Dend;

@@ -43,7 +43,14 @@ export function equivalentTimeS(m: Material, segments: readonly Segment[], TrefK
   const ref = shiftLog10(m.shift, TrefK);
   let sum = 0;
   for (const s of segments) sum += s.dtS * 10 ** (ref - shiftLog10(m.shift, s.TK));
-  return sum * cycles;
+  const total = sum * cycles;
+  if (!Number.isFinite(total)) {
+    throw new InputError(
+      'reference_temperature',
+      `the equivalent time exceeds 1e308 s: the reference ${(TrefK - 273.15).toFixed(2)} degC is too far below the history's temperatures; choose a higher reference`,
+    );
+  }
+  return total;
 }
 
 /** Modulus after `cycles` repetitions of the segments, evaluated at TevalK (default: the last segment's temperature). */

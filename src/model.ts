@@ -10,6 +10,7 @@
  *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, Ec = g Eg,
  *                     Ea = amorphous E, lambda phi = X(T), X(T) = X exp(-ln20 [(T/Tm)^m - (T23/Tm)^m])
  *                     above 23 degC (melting; X at and below 23 degC), times exp(-(T - Tm)/2 K) above Tm
+ *                     (also below 23 degC when Tm is, so E stays continuous)
  *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113)
  *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
  * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
@@ -17,12 +18,12 @@
  * A Prony-series material (pronymaterial.ts, fitted from test curves) is evaluated by the same entry
  * points: E = E_inf + sum E_i exp(-xi / tau_i), with its own shift law.
  */
-import { ParameterError } from './errors.js';
+import { InputError, ParameterError } from './errors.js';
 import type { Kind, MaterialParams } from './params.js';
 import { validateParams } from './params.js';
 import { pronyModulusMPa, pronyGlassyMPa, type PronySeries } from './prony.js';
 import { brentRoot } from './roots.js';
-import { arrheniusLog10, GAS_CONSTANT, shiftLog10, type ShiftConstants } from './shift.js';
+import { arrheniusLog10, GAS_CONSTANT, shiftLog10, WLF_SINGULARITY_MARGIN_K, type ShiftConstants } from './shift.js';
 import { KELVIN_OFFSET } from './units.js';
 
 /** The reference temperature of the datasheet modulus and of the slow-creep clock, kelvin (ISO 291 standard atmosphere 23 degC). */
@@ -130,6 +131,14 @@ function checkGlassy(m: Material): Material {
 
 /** Solves the glassy modulus so that E(23 degC, datasheet time) equals E23 (MPa). */
 function anchorGlassyModulus(base: Material, E23: number): Material {
+  const s = base.shift;
+  if (s.law === 'wlf' && T23_K - s.TrefK <= -s.C2K + WLF_SINGULARITY_MARGIN_K) {
+    throw new ParameterError(
+      'E23_MPa',
+      `cannot anchor the 23 degC modulus: the pure WLF law is undefined at 23 degC (at or below Tg - C2 + ${WLF_SINGULARITY_MARGIN_K} K); give Eg_MPa instead, or use the hybrid law`,
+      E23,
+    );
+  }
   const at = (logEg: number): number => evaluateClocks(build(base.params, 10 ** logEg), DATASHEET_TIME_S, T23_K).modulusMPa;
   const lo = Math.log10(50);
   const hi = Math.log10(20000);
@@ -144,6 +153,20 @@ function anchorGlassyModulus(base: Material, E23: number): Material {
   }
   const r = brentRoot((x) => at(x) / E23 - 1, lo, hi, 1e-12);
   return checkGlassy(build(base.params, 10 ** r.root));
+}
+
+/**
+ * Checks that the material's shift law is defined at T (K) (a pure WLF law is not at or below
+ * Tg - C2 + 1 K) and returns T; the error names `argument`, the input the temperature came from.
+ */
+export function checkTemperatureInDomain(m: Material, TK: number, argument: string): number {
+  try {
+    shiftLog10(m.shift, TK);
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(argument, e.problem);
+    throw e;
+  }
+  return TK;
 }
 
 /** Relaxation modulus (MPa) at time t (s) and temperature T (K). */
@@ -187,8 +210,9 @@ export function evaluateReduced(m: Material, xi: number, theta: number, TK: numb
     const region: Region = G >= 0.9 ? 'glassy' : glassy > rubbery ? 'transition' : F >= 0.5 ? 'rubbery' : 'flow';
     return { modulusMPa: Ea, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: 0 };
   }
-  const remaining =
-    TK <= T23_K ? 1 : Math.exp(-LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23) - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
+  // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
+  const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
+  const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
   const X = m.crystallinity * remaining;
   const Ec = g * m.EgMPa;
   const lambda = X / m.phi;

@@ -62,7 +62,9 @@ export function temperatureForShiftK(c: ShiftConstants, log10aT: number): number
   if (log10aT <= -c.C1) return null;
   const dT = (-log10aT * c.C2K) / (log10aT + c.C1);
   if (c.law === 'wlf' && dT <= -c.C2K + WLF_SINGULARITY_MARGIN_K) return null;
-  return c.TrefK + dT;
+  // With C2 larger than Tg in kelvin, WLF would answer at or below absolute zero.
+  const T = c.TrefK + dT;
+  return T > 0 ? T : null;
 }
 
 /** WLF constants moved from reference T0 to a new reference T1 (kelvin): C2' = C2 + T1 - T0, C1' = C1 C2 / C2'. */

@@ -5,7 +5,7 @@
 import { InputError, SolverError } from './errors.js';
 import { modulusMPa, type Material } from './model.js';
 import { brentRoot, ROOT_REL_TOL } from './roots.js';
-import { shiftLog10, temperatureForShiftK } from './shift.js';
+import { shiftLog10, temperatureForShiftK, WLF_SINGULARITY_MARGIN_K } from './shift.js';
 import { KELVIN_OFFSET, SECONDS_PER_YEAR } from './units.js';
 
 /** Temperature search range of MAXTEMP, kelvin: -150 degC to 500 degC. */
@@ -41,16 +41,25 @@ function solveBracket(f: (x: number) => number, a: number, b: number): { root: n
   return { root: r.root, iterations: r.iterations, residual: r.residual };
 }
 
+/** A pure WLF law is undefined at and below Tg - C2 + margin: start the search just above that. */
+function searchRangeK(m: Material): readonly [number, number] {
+  const [lo, hi] = TEMP_SEARCH_K;
+  const c = m.shift;
+  if (c.law !== 'wlf') return [lo, hi];
+  return [Math.max(lo, c.TrefK - c.C2K + WLF_SINGULARITY_MARGIN_K + 1e-6), hi];
+}
+
 /**
  * Highest temperature (K) at which E(t, T) >= required (MPa) for the time t (s).
- * 'below-throughout': even at -150 degC the material is softer; 'above-throughout': stiffer up to 500 degC.
+ * 'below-throughout': even at -150 degC (pure WLF: just above its singularity) the material is softer;
+ * 'above-throughout': stiffer up to 500 degC.
  */
 export function maxTemperatureK(m: Material, requiredMPa: number, tS: number): InverseAnswer {
   requirePositive(requiredMPa, 'required_modulus');
   requirePositive(tS, 'time');
   const logReq = Math.log10(requiredMPa);
   const f = (TK: number): number => logE(modulusMPa(m, tS, TK)) - logReq;
-  const [lo, hi] = TEMP_SEARCH_K;
+  const [lo, hi] = searchRangeK(m);
   if (f(hi) >= 0) return { status: 'above-throughout', value: null, iterations: 0, residual: 0 };
   let a = lo;
   let b = hi;

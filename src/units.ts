@@ -18,6 +18,17 @@ math.createUnit('d', { definition: '1 day' });
 
 /** Absolute zero on the Celsius scale (definition of the kelvin, SI Brochure 9th ed. 2019). */
 export const KELVIN_OFFSET = 273.15;
+/**
+ * Highest temperature accepted, degC. Set here: far above where any organic polymer survives (common
+ * practice: they decompose below about 600 degC), so a unit slip or a runaway number is refused with a
+ * clear error instead of reaching the model (3 rho R T / Mc overflows near 1e308 K).
+ */
+export const MAX_TEMPERATURE_C = 2000;
+/**
+ * Lowest temperature accepted, kelvin. Set here: below any service temperature (liquid helium, 4.2 K,
+ * stays accepted) and far above where the Arrhenius term 1/T overflows (about 1e-300 K).
+ */
+export const MIN_TEMPERATURE_K = 1;
 export const SECONDS_PER_HOUR = 3600;
 /** The Julian year, 365.25 d (IAU), as mathjs uses it. */
 export const SECONDS_PER_YEAR = 31557600;
@@ -107,7 +118,7 @@ function finiteOrThrow(value: number, argument: string, what: string): number {
   return value;
 }
 
-/** Parses a temperature (bare number: degC) to kelvin; rejects values below absolute zero. */
+/** Parses a temperature (bare number: degC) to kelvin; rejects values below MIN_TEMPERATURE_K and above MAX_TEMPERATURE_C. */
 export function parseTemperatureK(input: number | string, argument = 'temperature'): number {
   let kelvin: number;
   if (typeof input === 'number') {
@@ -120,6 +131,15 @@ export function parseTemperatureK(input: number | string, argument = 'temperatur
   finiteOrThrow(kelvin, argument, 'a temperature');
   if (kelvin <= 0) {
     throw new InputError(argument, `${formatInput(input)} is at or below absolute zero (-273.15 degC)`);
+  }
+  if (kelvin < MIN_TEMPERATURE_K) {
+    throw new InputError(argument, `${formatInput(input)} is below ${MIN_TEMPERATURE_K} K, too close to absolute zero for the model`);
+  }
+  if (kelvin > MAX_TEMPERATURE_C + KELVIN_OFFSET) {
+    throw new InputError(
+      argument,
+      `${formatInput(input)} is outside the accepted range (above ${MAX_TEMPERATURE_C} degC, where no polymer survives); check the unit`,
+    );
   }
   return kelvin;
 }

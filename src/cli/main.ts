@@ -4,6 +4,7 @@ import {
   apparentTgK,
   bandEstimate,
   checkStrain,
+  checkTemperatureInDomain,
   parseStrain,
   retainedStressMPa,
   deratingTable,
@@ -52,6 +53,17 @@ function listOf(text: string, argument: string): string[] {
     .filter((s) => s !== '');
   if (items.length === 0) throw new InputError(argument, 'needs a comma-separated list');
   return items;
+}
+
+/** Runs an engine call whose InputErrors name engine arguments, renaming them to the CLI options they came from. */
+function renamed<T>(names: Readonly<Record<string, string>>, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    const to = e instanceof InputError ? names[e.argument] : undefined;
+    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
+    throw e;
+  }
 }
 
 function inverseText(a: InverseAnswer, above: string, below: string): string {
@@ -109,7 +121,7 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const tS = parseTimeS(str(v, 'time'), '--time');
       const b = bandEstimate(m, tS, TK);
       const data = {
@@ -129,7 +141,7 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const log10aT = shiftLog10(m.shift, TK);
       const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
       emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
@@ -161,7 +173,7 @@ const COMMANDS: Record<string, Command> = {
     run(v, out) {
       const m = materialFrom(v);
       const req = parseStressMPa(str(v, 'modulus'), '--modulus');
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const a = maxTimeS(m, req, TK);
       const note = inverseText(a, 'beyond 100 years', 'never reached: below the required modulus already at 1 ms');
       emit(
@@ -200,13 +212,16 @@ const COMMANDS: Record<string, Command> = {
         if (T === undefined || t === undefined || extra !== undefined) {
           throw new InputError('--cycle', `segment ${i + 1} '${item}' must be TEMPERATURE:DURATION, such as '70 degC:8 h'`);
         }
-        return { TK: parseTemperatureK(T, '--cycle'), dtS: parseTimeS(t, '--cycle') };
+        return { TK: checkTemperatureInDomain(m, parseTemperatureK(T, '--cycle'), '--cycle'), dtS: parseTimeS(t, '--cycle') };
       });
       const cycles = v['cycles'] === undefined ? 1 : Number(v['cycles']);
       if (!Number.isFinite(cycles) || cycles <= 0)
         throw new InputError('--cycles', `must be a positive number, got '${String(v['cycles'])}'`);
-      const refK = v['ref'] === undefined ? Math.max(...segments.map((s) => s.TK)) : parseTemperatureK(str(v, 'ref'), '--ref');
-      const teq = equivalentTimeS(m, segments, refK, cycles);
+      const refK =
+        v['ref'] === undefined
+          ? Math.max(...segments.map((s) => s.TK))
+          : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
+      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
       const after = modulusAfterHistory(m, segments, cycles, refK);
       emit(
         out,
@@ -229,7 +244,7 @@ const COMMANDS: Record<string, Command> = {
     run(v, out) {
       const m = materialFrom(v);
       const strain = checkStrain(parseStrain(str(v, 'strain'), '--strain'), '--strain');
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
       const tS = parseTimeS(str(v, 'time'), '--time');
       const r = retainedStressMPa(m, strain, tS, TK);
       const warn = r.beyondLinearRange ? ' (strain above about 1 %: beyond the usual linear range, estimate likely high)' : '';
@@ -267,7 +282,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = parseTimeS(str(v, 'time'), '--time');
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = deratingTable(ids, temps, tS);
+      const rows = renamed({ reference: '--families', temperature: '--temps' }, () => deratingTable(ids, temps, tS));
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,
@@ -305,6 +320,7 @@ export async function main(argv: readonly string[], out: Out, err: Out): Promise
   const [name, ...rest] = argv;
   if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
     out.write(helpText());
+    if (name === undefined) err.write('resin-derate: a command is required; the commands are listed above\n');
     return name === undefined ? 1 : 0;
   }
   const command = COMMANDS[name];
