@@ -171,7 +171,10 @@ export function checkTemperatureInDomain(m: Material, TK: number, argument: stri
 
 /** Relaxation modulus (MPa) at time t (s) and temperature T (K). */
 export function modulusMPa(m: Material, tS: number, TK: number): number {
-  return evaluateClocks(m, tS, TK).modulusMPa;
+  const xi = tS / 10 ** shiftLog10(m.shift, TK);
+  if (m.prony) return pronyModulusMPa(m.prony, xi);
+  const theta = m.creepN === 0 ? 0 : tS / 10 ** (m.creepLog10PerInvK * (1 / TK - 1 / T23_K));
+  return modulusParts(m, xi, theta, TK, SCRATCH);
 }
 
 /** Full evaluation (modulus in MPa, region, contributions) at time t (s) and temperature T (K). */
@@ -186,53 +189,93 @@ export function creepRate(m: Material, TK: number): number {
   return 1 / 10 ** arrheniusLog10(TK, T23_K, m.params.creepEa_kJmol);
 }
 
+/** The contributions behind one modulus, filled in place so the hot path allocates nothing. */
+interface Parts {
+  G: number;
+  F: number;
+  g: number;
+  remaining: number;
+  glassy: number;
+  rubbery: number;
+  lambda: number;
+}
+
+const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0 };
+
+/** Modulus (MPa) of a four-region material from its clocks (xi in s at Tg, theta), writing the contributions into p. */
+function modulusParts(m: Material, xi: number, theta: number, TK: number, p: Parts): number {
+  const x = xi / m.tauTg;
+  const G = Math.exp(-(x ** m.beta));
+  const g = m.creepN === 0 ? 1 : (1 + theta) ** -m.creepN;
+  p.G = G;
+  p.g = g;
+  if (m.kind === 'crosslinked') {
+    const Er = m.networkMPaPerK * TK;
+    p.glassy = g * Math.max(0, m.EgMPa - Er) * G;
+    p.rubbery = Er;
+    p.F = 1;
+    p.remaining = 0;
+    p.lambda = 0;
+    return p.glassy + Er;
+  }
+  const F = Math.exp(-(((x * m.tauTg) / m.tauFlow) ** m.flowBeta));
+  const glassy = g * (m.EgMPa - m.plateau) * G;
+  const rubbery = g * m.plateau * F;
+  const Ea = glassy + rubbery;
+  p.F = F;
+  p.glassy = glassy;
+  p.rubbery = rubbery;
+  if (m.kind === 'amorphous') {
+    p.remaining = 0;
+    p.lambda = 0;
+    return Ea;
+  }
+  // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
+  const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
+  const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
+  const Ec = g * m.EgMPa;
+  const lambda = (m.crystallinity * remaining) / m.phi;
+  const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
+  p.remaining = remaining;
+  p.lambda = lambda;
+  return lambda * series + (1 - lambda) * Ea;
+}
+
+/** The region of a four-region evaluation from its contributions. */
+function regionOf(m: Material, E: number, p: Parts): Region {
+  if (m.kind === 'crosslinked') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : 'rubbery';
+  if (m.kind === 'amorphous') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : p.F >= 0.5 ? 'rubbery' : 'flow';
+  // Semi-crystalline: the amorphous phase is in transition while its glassy part carries at least a
+  // tenth of the stiffness; the crystals then hold a plateau until the melting law takes over.
+  return p.remaining < 0.5 && p.remaining >= 0.01
+    ? 'melting'
+    : p.G >= 0.9
+      ? 'glassy'
+      : (1 - p.lambda) * p.glassy >= 0.1 * E
+        ? 'transition'
+        : p.remaining >= 0.5
+          ? 'crystalline'
+          : p.F >= 0.5
+            ? 'rubbery'
+            : 'flow';
+}
+
 /**
  * Modulus (MPa) from accumulated clocks: xi = reduced time at Tg (s), theta = slow-creep clock (1),
  * with the time-independent parts (melting, network) taken at T (K).
  */
 export function evaluateReduced(m: Material, xi: number, theta: number, TK: number): Evaluation {
   if (m.prony) return evaluateProny(m.prony, xi);
-  const x = xi / m.tauTg;
-  const G = Math.exp(-(x ** m.beta));
-  const g = m.creepN === 0 ? 1 : (1 + theta) ** -m.creepN;
-  if (m.kind === 'crosslinked') {
-    const Er = m.networkMPaPerK * TK;
-    const glassy = g * Math.max(0, m.EgMPa - Er) * G;
-    const E = glassy + Er;
-    const region: Region = G >= 0.9 ? 'glassy' : glassy > Er ? 'transition' : 'rubbery';
-    return { modulusMPa: E, region, glassFraction: G, flowFraction: 1, creepFactor: g, crystalRemaining: 0 };
-  }
-  const F = Math.exp(-(((x * m.tauTg) / m.tauFlow) ** m.flowBeta));
-  const glassy = g * (m.EgMPa - m.plateau) * G;
-  const rubbery = g * m.plateau * F;
-  const Ea = glassy + rubbery;
-  if (m.kind === 'amorphous') {
-    const region: Region = G >= 0.9 ? 'glassy' : glassy > rubbery ? 'transition' : F >= 0.5 ? 'rubbery' : 'flow';
-    return { modulusMPa: Ea, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: 0 };
-  }
-  // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
-  const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
-  const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
-  const X = m.crystallinity * remaining;
-  const Ec = g * m.EgMPa;
-  const lambda = X / m.phi;
-  const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
-  const E = lambda * series + (1 - lambda) * Ea;
-  // Semi-crystalline: the amorphous phase is in transition while its glassy part carries at least a
-  // tenth of the stiffness; the crystals then hold a plateau until the melting law takes over.
-  const region: Region =
-    remaining < 0.5 && remaining >= 0.01
-      ? 'melting'
-      : G >= 0.9
-        ? 'glassy'
-        : (1 - lambda) * glassy >= 0.1 * E
-          ? 'transition'
-          : remaining >= 0.5
-            ? 'crystalline'
-            : F >= 0.5
-              ? 'rubbery'
-              : 'flow';
-  return { modulusMPa: E, region, glassFraction: G, flowFraction: F, creepFactor: g, crystalRemaining: remaining };
+  const p: Parts = { ...SCRATCH };
+  const E = modulusParts(m, xi, theta, TK, p);
+  return {
+    modulusMPa: E,
+    region: regionOf(m, E, p),
+    glassFraction: p.G,
+    flowFraction: p.F,
+    creepFactor: p.g,
+    crystalRemaining: p.remaining,
+  };
 }
 
 /**
