@@ -1,5 +1,6 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
-import { FAMILIES, KINDS, NUMERIC_FIELDS, paramsToRecord, SHIFT_LAWS, TEXT_FIELDS, type Family, type NumericField } from '../src/index.js';
+import { BLOCK_HEADER, paramsBlock } from '../functions/core/block.js';
+import { FAMILIES, type Family, type MaterialParams, type NumericField } from '../src/index.js';
 import type { Cell } from './a1.js';
 import type { CellWrite } from './port.js';
 import type { Plan } from './writer.js';
@@ -57,41 +58,35 @@ export function searchFamilies(query: string): Family[] {
 }
 
 /**
- * The block of a family as =DERATE.PARAMS(id) spills it (the layout of functions/core/block.ts on the
- * functions branch): a header row, then field, value, unit and description per field, with the fields
- * the kind does not use left empty. Every material argument reads it back (header optional, field names
- * in the first column, values in the second, further columns ignored).
+ * The parameter block exactly as =DERATE.PARAMS spills it: one definition (functions/core/block.ts)
+ * serves the worksheet function, the pane's writes and every material argument that reads a block back.
+ * Empty slots (fields the kind does not use) become '' here, the sheet port's empty cell.
  */
-export const BLOCK_HEADER = ['field', 'value', 'unit', 'description'] as const;
-
-const TEXT_FIELD_INFO: Record<(typeof TEXT_FIELDS)[number], { unit: string; description: string }> = {
-  id: { unit: 'text', description: 'short name of the material, shown in results' },
-  name: { unit: 'text', description: 'full name of the material' },
-  kind: { unit: 'text', description: `one of ${KINDS.join(', ')}` },
-  shiftLaw: { unit: 'text', description: `time-temperature shift law: ${SHIFT_LAWS.join(', ')} (hybrid = Arrhenius below Tg, WLF above)` },
-};
+export { BLOCK_HEADER };
 
 export type BlockRow = [string, string | number, string, string];
 
-export function parameterRows(f: Family): BlockRow[] {
-  const p = f.params;
-  const record = paramsToRecord(p);
-  const rows: BlockRow[] = TEXT_FIELDS.map((k) => [k, record[k] ?? '', TEXT_FIELD_INFO[k].unit, TEXT_FIELD_INFO[k].description]);
-  for (const spec of NUMERIC_FIELDS) {
-    const used = spec.kinds.includes(p.kind);
-    rows.push([
-      spec.key,
-      used ? (record[spec.key] ?? '') : '',
-      spec.unit,
-      used ? spec.description : `${spec.description} (not used by a ${p.kind} material; leave empty)`,
-    ]);
-  }
-  return rows;
+/** The whole block of a parameter record, header first, as written into the sheet. */
+export function paramsBlockRows(p: MaterialParams): (string | number)[][] {
+  return paramsBlock(p).map((row) =>
+    row.map((c) => {
+      if (c === null) return '';
+      if (typeof c === 'string' || typeof c === 'number') return c;
+      throw new Error(`the parameter block of '${p.id}' holds an error value: ${c.toString()}`);
+    }),
+  );
 }
 
-/** The whole block, header first, as written into the sheet. */
+/** The block of a family, header first. */
 export function blockRows(f: Family): (string | number)[][] {
-  return [[...BLOCK_HEADER], ...parameterRows(f)];
+  return paramsBlockRows(f.params);
+}
+
+/** The block of a family without its header row. */
+export function parameterRows(f: Family): BlockRow[] {
+  return blockRows(f)
+    .slice(1)
+    .map(([k = '', v = '', u = '', d = '']) => [String(k), v, String(u), String(d)]);
 }
 
 export function familyBlockPlan(f: Family): Plan {

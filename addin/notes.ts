@@ -8,3 +8,6 @@ export const MODEL_NOTE =
 
 export const FAMILY_NOTE =
   'Family symbols stand for typical unfilled, general-purpose grades of the bundled table (=DERATE.FAMILIES() lists them; the pane shows the source of each number).';
+
+export const CALIBRATION_NOTE =
+  "A calibrated block reproduces the datasheet numbers it was given (the check above), not the grade's behaviour at other times, temperatures or stresses, where the model extrapolates with the starting family's other parameters. Use it for screening only.";

@@ -1,16 +1,26 @@
 /// <reference types="office-js" />
 /**
- * The task pane: two jobs (look up a family, build a review) over the sheet port. Inside Excel the
+ * The task pane: three jobs (look up a family, build a review, calibrate a grade) over the sheet port. Inside Excel the
  * Office adapter is used; anywhere else (the preview, the browser tests) the in-memory sheet is drawn
  * beside the pane.
  */
-import { FAMILIES, getFamily, InputError, ParameterError, UnknownFamilyError } from '../src/index.js';
-import { parseRef, qualified, type Cell } from './a1.js';
+import { FAMILIES, getFamily, InputError, ParameterError, UnknownFamilyError, type CalibrationResult } from '../src/index.js';
+import { parseRef, qualified, type Box, type Cell } from './a1.js';
+import {
+  CALIBRATION_FIELD_NAMES,
+  calibratedBlockBox,
+  calibrationPlan,
+  QUALITY_TEXT,
+  readCalibration,
+  runCalibration,
+  type CalibrationFields,
+  type CalibrationRequest,
+} from './calibrate-job.js';
 import { byId, h } from './dom.js';
 import { familyBlockPlan, searchFamilies, summarize } from './families-job.js';
 import { MemoryWorkbook } from './memory-sheet.js';
 import { MemoryView } from './memory-view.js';
-import { CAUTION } from './notes.js';
+import { CALIBRATION_NOTE, CAUTION } from './notes.js';
 import { OfficeSheet } from './office-sheet.js';
 import { formatModulus, type SheetPort, type SheetRange } from './port.js';
 import {
@@ -36,7 +46,10 @@ interface State {
   candidates: CandidateEntry[];
   steps: CycleStep[];
   history: WriteRecord[];
-  targetFollowsSelection: boolean;
+  /** Target fields (by element id) that follow the selection until the user types in them. */
+  follow: Record<string, boolean>;
+  /** The calibration shown in the pane, until its inputs change. */
+  calibration: { request: CalibrationRequest; result: CalibrationResult } | null;
 }
 
 declare global {
@@ -83,13 +96,15 @@ async function start(): Promise<void> {
       { temperatureC: 30, hours: 16 },
     ],
     history: [],
-    targetFollowsSelection: true,
+    follow: { target: true, 'cal-target': true },
+    calibration: null,
   };
   byId('host-note').textContent = note;
   byId('caution-text').textContent = CAUTION;
   setUpTabs();
   setUpFamilies();
   setUpReview();
+  setUpCalibrate();
   byId('undo').addEventListener('click', () => void undoLast());
   try {
     await port.watchSelection(() => void refreshTarget());
@@ -112,7 +127,7 @@ function setUpTabs(): void {
       byId(t.getAttribute('aria-controls') ?? '').hidden = !on;
     }
     if (focus) tab.focus();
-    if (tab.id === 'tab-review') void refreshTarget();
+    if (tab.id === 'tab-review' || tab.id === 'tab-calibrate') void refreshTarget();
   };
   tabs.forEach((t, i) => {
     t.addEventListener('click', () => show(t, false));
@@ -302,29 +317,38 @@ async function writeFamily(id: string): Promise<void> {
     const record = await safeWrite(plan, sheet, topLeft);
     if (!record) return;
     const ref = qualified(record.receipt.sheet, record.receipt.box);
-    const add = h(
-      'button',
-      {
-        type: 'button',
-        class: 'secondary',
-        id: 'add-written-block',
-        onclick: () => {
-          const where = qualified(record.receipt.sheet, record.receipt.box, false);
-          state.candidates.push({ kind: 'block', ref: where });
-          renderCandidates();
-          say(`Added ${where} to the review candidates.`, 'ok');
-        },
-      },
-      'Add this block to the review',
-    );
     say(
       `Wrote the ${f.params.id} parameters to ${qualified(record.receipt.sheet, record.receipt.box, false)}. Edit the values to describe your grade and pass the range as the material of any DERATE function, e.g. =DERATE.MODULUS(${ref}, 80, "1000 h").`,
       'ok',
-      add,
+      addToReviewButton(record.receipt.sheet, record.receipt.box),
     );
   } catch (e) {
     say(describeError(e), 'error');
   }
+}
+
+/** A button that adds a parameter block just written to the review's candidates. */
+function addToReviewButton(sheet: string, box: Box): HTMLButtonElement {
+  const where = qualified(sheet, box, false);
+  const button = h(
+    'button',
+    {
+      type: 'button',
+      class: 'secondary',
+      id: 'add-written-block',
+      onclick: () => {
+        if (state.candidates.some((c) => c.kind === 'block' && c.ref === where)) {
+          say(`${where} is already a review candidate.`, 'info');
+          return;
+        }
+        state.candidates.push({ kind: 'block', ref: where });
+        renderCandidates();
+        say(`Added ${where} to the review candidates.`, 'ok');
+      },
+    },
+    'Add this block to the review',
+  );
+  return button;
 }
 
 // ---------- job 2: review ----------
@@ -359,14 +383,7 @@ function setUpReview(): void {
     renderSteps();
     document.querySelector<HTMLInputElement>(`#step-${state.steps.length - 1}-temp`)?.focus();
   });
-  const target = byId<HTMLInputElement>('target');
-  target.addEventListener('input', () => {
-    state.targetFollowsSelection = false;
-  });
-  byId('target-from-selection').addEventListener('click', () => {
-    state.targetFollowsSelection = true;
-    void refreshTarget();
-  });
+  followSelection('target', 'target-from-selection');
   byId<HTMLFormElement>('review-form').addEventListener('submit', (e) => {
     e.preventDefault();
     void writeReview();
@@ -376,11 +393,24 @@ function setUpReview(): void {
   showLoad();
 }
 
+/** A target field shows the selected cell until the user types in it; its button makes it follow again. */
+function followSelection(field: string, button: string): void {
+  byId<HTMLInputElement>(field).addEventListener('input', () => {
+    state.follow[field] = false;
+  });
+  byId(button).addEventListener('click', () => {
+    state.follow[field] = true;
+    void refreshTarget();
+  });
+}
+
 async function refreshTarget(): Promise<void> {
-  if (!state.targetFollowsSelection) return;
+  const fields = Object.keys(state.follow).filter((id) => state.follow[id]);
+  if (fields.length === 0) return;
   try {
     const sel = await state.port.selection();
-    byId<HTMLInputElement>('target').value = qualified(sel.sheet, { ...sel.box, bottom: sel.box.top, right: sel.box.left }, false);
+    const text = qualified(sel.sheet, { ...sel.box, bottom: sel.box.top, right: sel.box.left }, false);
+    for (const id of fields) byId<HTMLInputElement>(id).value = text;
   } catch {
     // Excel refuses a selection read while a cell is being edited; the field keeps its last value.
   }
@@ -512,6 +542,7 @@ const FIELD_FOR: Record<string, string> = {
   'duty cycle': 'add-step',
   candidates: 'add-family',
   target: 'target',
+  'block target': 'cal-target',
 };
 
 function markInvalid(e: unknown): void {
@@ -599,6 +630,178 @@ function renderSummary(input: ReviewInput): void {
       ),
     ),
   );
+}
+
+// ---------- job 3: calibrate a grade ----------
+
+/** The element of each calibration field. */
+const CAL_INPUT: Record<keyof CalibrationFields, string> = {
+  start: 'cal-start',
+  modulus23: 'cal-e23',
+  hdtA: 'cal-hdta',
+  hdtB: 'cal-hdtb',
+  tg: 'cal-tg',
+  tm: 'cal-tm',
+  creepModulus: 'cal-creep',
+  creepTime: 'cal-creep-time',
+  creepTemperature: 'cal-creep-temp',
+  id: 'cal-id',
+};
+
+for (const [key, id] of Object.entries(CAL_INPUT)) FIELD_FOR[CALIBRATION_FIELD_NAMES[key as keyof CalibrationFields]] = id;
+FIELD_FOR['datasheet numbers'] = 'cal-e23';
+
+function setUpCalibrate(): void {
+  const select = byId<HTMLSelectElement>('cal-start');
+  select.replaceChildren(...FAMILIES.map((f) => h('option', { value: f.params.id }, `${f.params.id} - ${f.params.name}`)));
+  select.value = 'PBT';
+  select.addEventListener('change', showStart);
+  showStart();
+  const form = byId<HTMLFormElement>('cal-form');
+  // A result shown belongs to the numbers it came from: any edit takes it away until Calibrate is pressed again.
+  form.addEventListener('input', dropCalibration);
+  form.addEventListener('change', dropCalibration);
+  form.addEventListener('submit', (e) => {
+    e.preventDefault();
+    void calibrate();
+  });
+  followSelection('cal-target', 'cal-target-from-selection');
+  byId('cal-write').addEventListener('click', () => void writeCalibration());
+  byId('cal-caution').textContent = CALIBRATION_NOTE;
+}
+
+function showStart(): void {
+  const f = getFamily(byId<HTMLSelectElement>('cal-start').value);
+  const s = summarize(f);
+  const facts = s.quantities
+    .filter((q) => q.text !== '-')
+    .map((q) => `${q.label} ${q.text.replace(/ \(.*\)$/, '')}`)
+    .join(', ');
+  byId('cal-start-hint').textContent = `${s.kind}; the family has ${facts}. What you do not give stays as the family has it.`;
+  byId('cal-tm-hint').textContent =
+    f.params.kind === 'semicrystalline'
+      ? 'Tg and Tm by DSC (Tm: the melting peak).'
+      : `Tg by DSC. ${f.params.id} is ${s.kind}: leave Tm empty.`;
+}
+
+function dropCalibration(): void {
+  if (!state.calibration) return;
+  state.calibration = null;
+  byId('cal-result').hidden = true;
+}
+
+function calibrationFields(): CalibrationFields {
+  const v = (id: string): string => byId<HTMLInputElement | HTMLSelectElement>(id).value;
+  return {
+    start: v(CAL_INPUT.start),
+    modulus23: v(CAL_INPUT.modulus23),
+    hdtA: v(CAL_INPUT.hdtA),
+    hdtB: v(CAL_INPUT.hdtB),
+    tg: v(CAL_INPUT.tg),
+    tm: v(CAL_INPUT.tm),
+    creepModulus: v(CAL_INPUT.creepModulus),
+    creepTime: v(CAL_INPUT.creepTime),
+    creepTemperature: v(CAL_INPUT.creepTemperature),
+    id: v(CAL_INPUT.id),
+  };
+}
+
+/** A value for the check table: the number, then its unit (which may wrap onto the next line). */
+function num(x: number | null, unit: string): (string | HTMLElement)[] {
+  if (x === null) return ['not reached'];
+  return [`${Number(x.toPrecision(4))} `, h('span', { class: 'unit' }, unit)];
+}
+
+async function calibrate(): Promise<void> {
+  const button = byId<HTMLButtonElement>('calibrate');
+  button.disabled = true;
+  dropCalibration();
+  try {
+    const request = readCalibration(calibrationFields());
+    markInvalid(null);
+    say(`Calibrating ${request.start.params.id} to your datasheet numbers...`, 'info');
+    // Let the message paint before the fit takes the main thread (well under a second).
+    await new Promise((r) => setTimeout(r, 0));
+    const result = runCalibration(request);
+    state.calibration = { request, result };
+    renderCalibration(result);
+    byId('status').replaceChildren();
+    byId('cal-result').hidden = false;
+    await refreshTarget();
+    byId('cal-result-title').scrollIntoView({ block: 'nearest' });
+  } catch (e) {
+    markInvalid(e);
+    say(describeError(e), 'error');
+  } finally {
+    button.disabled = false;
+  }
+}
+
+function renderCalibration(r: CalibrationResult): void {
+  const quality = byId('cal-quality');
+  quality.className = `quality quality-${r.quality}`;
+  quality.textContent = `Quality ${r.quality}: ${QUALITY_TEXT[r.quality]}.`;
+  byId('cal-check-rows').replaceChildren(
+    ...r.residuals.map((x) =>
+      h(
+        'tr',
+        {},
+        h('th', { scope: 'row' }, x.input, h('span', { class: 'tolerance' }, `\u00b1\u00a0${x.tolerance.replace(' ', '\u00a0')}`)),
+        h('td', { class: 'num' }, ...num(x.given, x.unit)),
+        h('td', { class: 'num' }, ...num(x.reproduced, x.unit)),
+        h('td', { class: x.within ? 'pass' : 'fail' }, x.within ? 'yes' : 'no'),
+      ),
+    ),
+  );
+  byId('cal-fitted').replaceChildren(
+    ...(r.free.length === 0
+      ? []
+      : [
+          h('h4', {}, 'Parameters fitted'),
+          h(
+            'ul',
+            { class: 'notes' },
+            ...r.free.map((f) =>
+              h(
+                'li',
+                {},
+                `${f.field}: ${Number(f.start.toPrecision(4))} to ${Number(f.value.toPrecision(4))}${f.atBound ? ' (on its search bound)' : ''}`,
+              ),
+            ),
+          ),
+        ]),
+  );
+  byId('cal-notes').replaceChildren(...r.notes.map((n) => h('li', {}, capital(n))));
+}
+
+async function writeCalibration(): Promise<void> {
+  const current = state.calibration;
+  if (!current) {
+    say('Press Calibrate first: the block is written from the calibration shown.', 'info');
+    return;
+  }
+  const button = byId<HTMLButtonElement>('cal-write');
+  button.disabled = true;
+  try {
+    const target = await resolveRange(byId<HTMLInputElement>('cal-target').value, 'block target');
+    markInvalid(null);
+    byId('status').replaceChildren();
+    const plan = calibrationPlan(current.request, current.result);
+    const record = await safeWrite(plan, target.sheet, { row: target.box.top, col: target.box.left });
+    if (!record) return;
+    const box = calibratedBlockBox(current.result, { row: record.receipt.box.top, col: record.receipt.box.left });
+    const where = qualified(record.receipt.sheet, box, false);
+    say(
+      `Wrote the calibrated block ${current.result.params.id} to ${where}${record.createdSheet ? ` on the new sheet ${record.createdSheet}` : ''}, with the datasheet check and the cautions below it. Pass the block as the material of any DERATE function, e.g. =DERATE.MODULUS(${qualified(record.receipt.sheet, box)}, 80, "1000 h").`,
+      'ok',
+      addToReviewButton(record.receipt.sheet, box),
+    );
+  } catch (e) {
+    markInvalid(e);
+    say(describeError(e), 'error');
+  } finally {
+    button.disabled = false;
+  }
 }
 
 void start().catch((e: unknown) => {

@@ -6,7 +6,8 @@
  */
 import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { getFamily } from '../src/index.js';
+import { compileMaterial, cToKelvin, getFamily, modulusMPa, simulateHdt } from '../src/index.js';
+import { calibrationPlan, readCalibration, runCalibration } from '../addin/calibrate-job.js';
 import { cellAddress } from '../addin/a1.js';
 import { blockRows } from '../addin/families-job.js';
 import { reviewPlan, type Load } from '../addin/review.js';
@@ -78,4 +79,39 @@ describe.skipIf(!present)('review formulas in HyperFormula with the DERATE funct
       expect(checked).toBe(3 * 5 + 3 * 2 + 5);
     });
   }
+
+  it('read a calibrated block the pane writes as the material it is', async () => {
+    const { loadFunctions } = (await import(LOADER)) as { loadFunctions: () => Promise<unknown> };
+    const { derateWorkbook } = (await import(HOST)) as { derateWorkbook: (s: Record<string, unknown[][]>) => Engine };
+    await loadFunctions();
+    // INVENTED datasheet numbers of a made-up PBT grade.
+    const req = readCalibration({
+      start: 'PBT',
+      modulus23: '2600',
+      hdtA: '62',
+      hdtB: '160',
+      tg: '',
+      tm: '',
+      creepModulus: '',
+      creepTime: '',
+      creepTemperature: '',
+      id: 'PBT-invented',
+    });
+    const result = runCalibration(req);
+    const { cells } = calibrationPlan(req, result).build('Sheet1', { row: 0, col: 0 });
+    const grid: unknown[][] = cells.map((r) => r.map((c) => (c.value === '' ? null : c.value)));
+    const formulas = ['=DERATE.MODULUS(Sheet1!A1:D30,80,"1000 h")', '=DERATE.HDT(Sheet1!A1:D30,"A")', '=DERATE.HDT(Sheet1!A1:D30,"B")'];
+    const hf = derateWorkbook({ Sheet1: grid, Check: [formulas] });
+    const sheet = hf.getSheetId('Check') ?? -1;
+    const m = compileMaterial(result.params);
+    const expected = [modulusMPa(m, 3.6e6, cToKelvin(80)), simulateHdt(m, 1.8).temperatureC, simulateHdt(m, 0.45).temperatureC];
+    expected.forEach((x, col) => {
+      const v = hf.getCellValue({ sheet, row: 0, col });
+      expect(typeof v, `${formulas[col]} gave ${JSON.stringify(v)}`).toBe('number');
+      expectClose(v as number, x ?? NaN, {
+        rel: 1e-12,
+        source: `${formulas[col]}: the worksheet function on the written block against the engine on the calibrated record (identity)`,
+      });
+    });
+  });
 });

@@ -15,6 +15,7 @@ import {
 import { boxAddress, columnName, parseCell, parseRef, qualified, quoteSheet } from '../addin/a1.js';
 import { blockRows, familyBlockPlan, parameterRows, searchFamilies, summarize } from '../addin/families-job.js';
 import { formatModulus } from '../addin/port.js';
+import { paramsBlock } from '../functions/core/block.js';
 import {
   logAxisMinimum,
   paramsFromBlock,
@@ -65,6 +66,8 @@ describe('families job', () => {
       const block = blockRows(f);
       expect(block[0]).toEqual(['field', 'value', 'unit', 'description']);
       expect(block.slice(1).map((r) => r[0])).toEqual(ALL_KEYS);
+      // One layout: the cells DERATE.PARAMS spills, with its empty slots as the sheet's empty cells.
+      expect(block).toEqual(paramsBlock(f.params).map((r) => r.map((c) => c ?? '')));
       const cells = familyBlockPlan(f).build('Sheet1', { row: 0, col: 0 }).cells;
       expect(cells.map((r) => r.map((c) => c.value))).toEqual(block);
       const back = paramsFromBlock({ values: block, formulas: block }, 'Sheet1!A1:D30');

@@ -8,8 +8,19 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import buildAddin from '../../scripts/build/30-addin.mjs';
 import { CHROMIUM_ARGS, ensureChromium } from '../../scripts/ensure-chromium.mjs';
 import { startPreview, type Preview } from '../../scripts/preview-server.mjs';
-import { compileMaterial, cToKelvin, getFamily, modulusAfterHistory, modulusMPa, parseTimeS, type Material } from '../../src/index.js';
-import { blockRows } from '../../addin/families-job.js';
+import {
+  calibrationCheckRows,
+  compileMaterial,
+  cToKelvin,
+  getFamily,
+  modulusAfterHistory,
+  modulusMPa,
+  parseTimeS,
+  type CalibrationResult,
+  type Material,
+} from '../../src/index.js';
+import { calibrationLayout, readCalibration, runCalibration, type CalibrationFields } from '../../addin/calibrate-job.js';
+import { blockRows, paramsBlockRows } from '../../addin/families-job.js';
 import { expectClose } from '../expect.js';
 
 let preview: Preview;
@@ -230,6 +241,149 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     expect(await page.isHidden('#last-write')).toBe(true);
   });
 
+  /** INVENTED datasheet numbers of a made-up PBT grade (no real product), typed as a user would. */
+  const INVENTED: Partial<CalibrationFields> = {
+    modulus23: '2.6 GPa',
+    hdtA: '62',
+    hdtB: '320 degF',
+    tg: '55',
+    tm: '224',
+    creepModulus: '1800',
+    id: 'PBT-invented',
+  };
+  const CAL_IDS: Record<keyof CalibrationFields, string> = {
+    start: '#cal-start',
+    modulus23: '#cal-e23',
+    hdtA: '#cal-hdta',
+    hdtB: '#cal-hdtb',
+    tg: '#cal-tg',
+    tm: '#cal-tm',
+    creepModulus: '#cal-creep',
+    creepTime: '#cal-creep-time',
+    creepTemperature: '#cal-creep-temp',
+    id: '#cal-id',
+  };
+  let calibration: CalibrationResult;
+
+  it('refuses bad datasheet input with a message naming the field', async () => {
+    await page.click('#tab-calibrate');
+    await page.selectOption('#cal-start', 'PBT');
+    for (const [key, text] of Object.entries(INVENTED)) await page.fill(CAL_IDS[key as keyof CalibrationFields], text ?? '');
+    await page.fill('#cal-hdta', '20');
+    await page.click('#calibrate');
+    await page.waitForSelector('.status.error');
+    await expect(page.textContent('#status')).resolves.toMatch(/^HDT\/A \(1\.80 MPa\): must be above 23 degC/);
+    await expect(page.getAttribute('#cal-hdta', 'aria-invalid')).resolves.toBe('true');
+    expect(await page.isHidden('#cal-result')).toBe(true);
+    await page.fill('#cal-hdta', '62');
+  });
+
+  it('calibrates a grade in the page and shows how each datasheet number is reproduced before writing', async () => {
+    const before = await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'));
+    await page.click('#calibrate');
+    await page.waitForSelector('#cal-result:not([hidden])');
+    expect(await page.getAttribute('#cal-hdta', 'aria-invalid')).toBeNull();
+    // The same engine call in Node: the pane must show its numbers.
+    const fields: CalibrationFields = {
+      start: 'PBT',
+      creepTime: '1000 h',
+      creepTemperature: '23',
+      modulus23: '',
+      hdtA: '',
+      hdtB: '',
+      tg: '',
+      tm: '',
+      creepModulus: '',
+      id: '',
+      ...INVENTED,
+    } as CalibrationFields;
+    calibration = runCalibration(readCalibration(fields));
+    expect(calibration.quality).toBe('good');
+    await expect(page.textContent('#cal-quality')).resolves.toMatch(/^Quality good/);
+    const rows = await page
+      .locator('#cal-check-rows tr')
+      .evaluateAll((trs) =>
+        trs.map((tr) =>
+          Array.from(tr.children).map((c) => (c.firstChild?.textContent ?? '').trim() + ' ' + (c.children[0]?.textContent ?? '')),
+        ),
+      );
+    expect(rows.map((r) => r[0]?.replace(/ ±.*$/, ''))).toEqual(calibration.residuals.map((x) => x.input));
+    for (const [i, x] of calibration.residuals.entries()) {
+      const [, given, reproduced, within] = rows[i] ?? [];
+      expect(given?.trim()).toBe(`${Number(x.given.toPrecision(4))} ${x.unit}`);
+      expect(reproduced?.trim()).toBe(`${Number((x.reproduced ?? NaN).toPrecision(4))} ${x.unit}`);
+      expect(within?.trim()).toBe(x.within ? 'yes' : 'no');
+    }
+    // HDT/B was typed in degF and is shown in degC.
+    expectClose(calibration.residuals[4]?.given ?? NaN, 160, { rel: 1e-12, source: 'NIST SP 811 (2008) B.8: (320 - 32) / 1.8 = 160' });
+    await expect(page.textContent('#cal-caution')).resolves.toMatch(/not the grade's behaviour at other times/);
+    // Nothing has been written yet.
+    expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(before);
+    // An edit takes the shown result away until Calibrate is pressed again.
+    await page.fill('#cal-tg', '56');
+    expect(await page.isHidden('#cal-result')).toBe(true);
+    await page.fill('#cal-tg', '55');
+    await page.click('#calibrate');
+    await page.waitForSelector('#cal-result:not([hidden])');
+  });
+
+  it('does not write the calibrated block over the user data', async () => {
+    await page.fill('#cal-target', 'Sheet1!A1');
+    await page.click('#cal-write');
+    await page.waitForSelector('#ask:not([hidden])');
+    await expect(page.textContent('#ask-text')).resolves.toMatch(
+      /calibrated PBT-invented block needs Sheet1!A1:G\d+ .*1 cell there already holds something/,
+    );
+    await page.click('#ask-cancel');
+    await page.waitForSelector('.status.info >> text=Nothing was written');
+    expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(1);
+    expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
+  });
+
+  it('writes the block, its check and the cautions as values, and adds the block to the review with one click', async () => {
+    await page.fill('#cal-target', 'Sheet1!J1');
+    await page.click('#cal-write');
+    await page.waitForSelector('#add-written-block');
+    await expect(page.textContent('#status')).resolves.toMatch(/Wrote the calibrated block PBT-invented to Sheet1!J1:M30/);
+    // Chromium's and Node's V8 may differ in the last bits of Math functions, so numbers agree to 1e-9, text exactly.
+    const sameEngine = 'the same calibration run in Node (platform floating-point differences only)';
+    const expectCell = async (r: number, c: number, value: string | number): Promise<void> => {
+      const got = await cell('Sheet1', r, c);
+      if (value === '') expect(got, `row ${r} col ${c}`).toBeNull();
+      else if (typeof value === 'number') {
+        expect(got?.formula, `row ${r} col ${c}`).toBeUndefined();
+        expectClose(Number(got?.value), value, { rel: 1e-9, source: sameEngine });
+      } else expect(got).toEqual({ value });
+    };
+    const block = paramsBlockRows(calibration.params);
+    for (const [i, row] of block.entries()) for (const [j, value] of row.entries()) await expectCell(i, 9 + j, value);
+    expect(await cell('Sheet1', block.length, 9)).toBeNull();
+    const L = calibrationLayout(calibration);
+    for (const [i, row] of calibrationCheckRows(calibration).entries()) {
+      for (const [j, value] of row.entries()) await expectCell(L.checkHeaderRow + i, 9 + j, value);
+    }
+    const texts: string[] = [];
+    for (let r = L.cautionRow; r < L.rows; r++) texts.push(String((await cell('Sheet1', r, 9))?.value ?? ''));
+    expect(texts.join(' ')).toMatch(
+      /^Cautions A calibrated block reproduces .*screening .*ISO 899, ASTM D2990.*licensed engineering review/,
+    );
+    await page.click('#add-written-block');
+    await page.click('#tab-review');
+    const listed = await page.locator('#candidate-list li').allTextContents();
+    expect(listed.map((t) => t.replace(/Remove$/, ''))).toContain('Sheet1!J1:M30 (parameter block)');
+    await page.getByRole('button', { name: 'Remove Sheet1!J1:M30 (parameter block)' }).click();
+    await page.click('#tab-calibrate');
+  });
+
+  it('undo removes the calibrated block and leaves the user data', async () => {
+    await page.click('#undo');
+    await page.waitForSelector('.status.ok >> text=Removed the calibrated PBT-invented block');
+    expect(await cell('Sheet1', 0, 9)).toBeNull();
+    expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(1);
+    expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
+    expect(await page.isHidden('#last-write')).toBe(true);
+  });
+
   it('labels every control and reaches the jobs by keyboard', async () => {
     const unlabelled = await page.evaluate(() =>
       Array.from(document.querySelectorAll<HTMLElement>('#pane button, #pane input, #pane select, #preview input, #grid'))
@@ -255,16 +409,40 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     for (const id of ['add-family', 'add-family-btn', 'add-block', 'temps', 'load-cycle-radio', 'required', 'target', 'write-review']) {
       expect(reached, id).toContain(id);
     }
+    await page.focus('#tab-review');
+    await page.keyboard.press('ArrowRight');
+    await expect(page.evaluate(() => document.activeElement?.id)).resolves.toBe('tab-calibrate');
+    expect(await page.isVisible('#job-calibrate')).toBe(true);
+    reached.clear();
+    for (let i = 0; i < 30; i++) {
+      await page.keyboard.press('Tab');
+      reached.add(await page.evaluate(() => document.activeElement?.id ?? ''));
+    }
+    const calibrateControls = ['cal-start', 'cal-e23', 'cal-hdta', 'cal-hdtb', 'cal-tg', 'cal-tm', 'cal-creep', 'cal-creep-time'];
+    for (const id of [...calibrateControls, 'cal-creep-temp', 'cal-id', 'calibrate', 'cal-target', 'cal-write'])
+      expect(reached, id).toContain(id);
   });
 
   it('is readable at the pane width of 320 px', async () => {
     await page.setViewportSize({ width: 320, height: 900 });
-    await page.click('#tab-families');
-    const overflow = await page.evaluate(() => {
-      const pane = document.getElementById('pane');
-      return pane ? pane.scrollWidth - pane.clientWidth : -1;
+    const overflow = (): Promise<number> =>
+      page.evaluate(() => {
+        const pane = document.getElementById('pane');
+        return pane ? pane.scrollWidth - pane.clientWidth : -1;
+      });
+    // The calibration job with its check table shown is the widest content of the pane.
+    await page.click('#tab-calibrate');
+    expect(await page.isVisible('#cal-check')).toBe(true);
+    expect(await overflow()).toBe(0);
+    const table = await page.evaluate(() => {
+      const t = document.getElementById('cal-check');
+      const box = document.getElementById('cal-result');
+      return t && box ? t.getBoundingClientRect().right - box.getBoundingClientRect().right : NaN;
     });
-    expect(overflow).toBe(0);
+    expect(table).toBeLessThanOrEqual(0);
+    await page.locator('#cal-result').screenshot({ path: 'test-output/taskpane-calibrate-320.png' });
+    await page.click('#tab-families');
+    expect(await overflow()).toBe(0);
     const smallest = await page.evaluate(() =>
       Math.min(
         ...Array.from(document.querySelectorAll('#pane p, #pane label, #pane button, #pane dd')).map((el) =>
