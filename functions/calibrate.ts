@@ -72,7 +72,10 @@ const RECENT_MAX = 8;
 
 function runCalibration(...[p, m23, hdtA, hdtB, tg, tm, creepT, creepK, creepE, free]: Parsed): CalibrationResult {
   if (creepE === undefined && (creepT !== undefined || creepK !== undefined)) {
-    throw problem('creep_modulus', `is missing: ${creepT !== undefined ? 'creep_time' : 'creep_temp'} is given, so give the creep modulus measured there (or clear it)`);
+    throw problem(
+      'creep_modulus',
+      `is missing: ${creepT !== undefined ? 'creep_time' : 'creep_temp'} is given, so give the creep modulus measured there (or clear it)`,
+    );
   }
   const inputs: DatasheetInputs = {
     ...(m23 !== undefined ? { modulus23MPa: m23 } : {}),
@@ -162,7 +165,10 @@ export const CALCHECK = defineMatrix({
     const table: OutCell[][] = calibrationCheckRows(r).map((row) => row.map((c) => (typeof c === 'number' ? sig(c) : c)));
     const line = (label: string, text: string): OutCell[] => [label, text, null, null, null, null, null];
     table.push(
-      line('quality', `${QUALITY_MEANING[r.quality]} (${QUALITY_RULE}); ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`),
+      line(
+        'quality',
+        `${QUALITY_MEANING[r.quality]} (${QUALITY_RULE}); ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`,
+      ),
       line('fitted', freeText(r.free)),
       line('notes', notesText(r.notes)),
       line('caution', FIT_CAUTION),

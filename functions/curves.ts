@@ -55,7 +55,12 @@ function fitText(f: CurveFit): string {
 
 export const FITCURVES = defineMatrix({
   id: 'FITCURVES',
-  args: [curves('data_range'), optionalTemperature('tg'), optionalTemperature('reference'), count('terms_per_decade', 1, 10, { optional: true })],
+  args: [
+    curves('data_range'),
+    optionalTemperature('tg'),
+    optionalTemperature('reference'),
+    count('terms_per_decade', 1, 10, { optional: true }),
+  ],
   spillSize: ([data]) => {
     const n = dataRows(data);
     return n === undefined ? undefined : [PRONY_KEY_ROWS + n + PRONY_COMMENT_ROWS, 2];
@@ -131,7 +136,16 @@ export const SHIFTS = defineMatrix({
       ['Tg_C', law.TgK === null ? null : C(law.TgK), null, law.TgK === null ? 'not given' : 'given'],
       ['C1', v(law.C1), null, law.fitted.wlf ? 'WLF, fitted, referred to reference_C' : 'not fitted'],
       ['C2_K', v(law.C2K), null, law.fitted.wlf ? 'WLF, fitted, K, referred to reference_C' : 'not fitted'],
-      ['Ea_kJmol', v(law.EakJmol), null, law.fitted.arrhenius ? 'Arrhenius below Tg, fitted, kJ/mol' : law.EakJmol === null ? 'not used' : 'Arrhenius below Tg, not fitted (no curve below Tg), kJ/mol'],
+      [
+        'Ea_kJmol',
+        v(law.EakJmol),
+        null,
+        law.fitted.arrhenius
+          ? 'Arrhenius below Tg, fitted, kJ/mol'
+          : law.EakJmol === null
+            ? 'not used'
+            : 'Arrhenius below Tg, not fitted (no curve below Tg), kJ/mol',
+      ],
       [
         'quality',
         QUALITY_MEANING[quality],

@@ -151,7 +151,10 @@ describe('DERATE.CREEPMOD', () => {
     for (const h of [0.01, 0.1, 0.5, 2]) {
       const t = h * H;
       const D = 1 / Einf - (1 / Einf - 1 / E0) * Math.exp((-t * Einf) / (tau * E0));
-      expectClose(num(scalar('CREEPMOD').invoke(pronyToTable(SLS), 100, h)), 1 / D, { rel: 1e-9, source: 'standard linear solid, closed form' });
+      expectClose(num(scalar('CREEPMOD').invoke(pronyToTable(SLS), 100, h)), 1 / D, {
+        rel: 1e-9,
+        source: 'standard linear solid, closed form',
+      });
     }
   });
 
@@ -171,7 +174,13 @@ describe('DERATE.FITCURVES and DERATE.SHIFTS', () => {
     const hf = derateWorkbook({
       Data: data,
       Fit: [['=DERATE.FITCURVES(Data!A1:C' + n + ', 147)']],
-      Use: [[`=DERATE.MODULUS(Fit!A1:B${10 + n + 4}, 152, 1)`, `=DERATE.MODULUS(Fit!A1:B${10 + n + 4}, 120, "1000 h")`, `=DERATE.CREEPMOD(Fit!A1:B${10 + n + 4}, 152, 1)`]],
+      Use: [
+        [
+          `=DERATE.MODULUS(Fit!A1:B${10 + n + 4}, 152, 1)`,
+          `=DERATE.MODULUS(Fit!A1:B${10 + n + 4}, 120, "1000 h")`,
+          `=DERATE.CREEPMOD(Fit!A1:B${10 + n + 4}, 152, 1)`,
+        ],
+      ],
     });
     const fit = fitCurves(readCurveTable(data), { TgK: cToKelvin(147) });
     const m = resolveMaterial(fit.material);
@@ -199,7 +208,10 @@ describe('DERATE.FITCURVES and DERATE.SHIFTS', () => {
     for (const p of points) {
       const [t0, E0] = [Number(p[1]), Number(p[2])];
       expectClose(num(scalar('MODULUS').invoke(t, 152, t0 / H)), E0, { rel: 0.12, source: `${DEMO_CURVES}, 152 degC, ${t0} s` });
-      expectClose(num(scalar('MODULUS').invoke(t, 152, t0 / H)), modulusMPa(m, t0, cToKelvin(152)), { rel: 1e-9, source: 'engine: fitCurves material' });
+      expectClose(num(scalar('MODULUS').invoke(t, 152, t0 / H)), modulusMPa(m, t0, cToKelvin(152)), {
+        rel: 1e-9,
+        source: 'engine: fitCurves material',
+      });
     }
   });
 
@@ -233,7 +245,12 @@ describe('DERATE.FITCURVES and DERATE.SHIFTS', () => {
     const fit = fitCurves(readCurveTable(data), { TgK: cToKelvin(147) });
     expect(cell(hf, 'S!A1')).toBe('temperature_C');
     const shifts = [...fit.shifts].sort((a, b) => a.temperatureK - b.temperatureK);
-    shifts.forEach((s, i) => expectClose(cell(hf, `S!B${i + 2}`) as number, s.log10aT, { abs: 1e-12, source: `engine: src/mastercurve.ts shiftCurves, ${DEMO_CURVES}` }));
+    shifts.forEach((s, i) =>
+      expectClose(cell(hf, `S!B${i + 2}`) as number, s.log10aT, {
+        abs: 1e-12,
+        source: `engine: src/mastercurve.ts shiftCurves, ${DEMO_CURVES}`,
+      }),
+    );
     expect(cell(hf, `S!A${shifts.length + 5}`)).toBe('C1');
     expectClose(cell(hf, `S!B${shifts.length + 5}`) as number, fit.shiftLaw.C1 ?? NaN, { rel: 1e-12, source: 'engine: fitShiftLaw' });
     hf.destroy();
@@ -247,7 +264,14 @@ describe('DERATE.CALIBRATE and DERATE.CALCHECK', () => {
     const hf = derateWorkbook({
       C: [['=DERATE.CALIBRATE("PC", 2300, 128, 140, 147)']],
       K: [['=DERATE.CALCHECK("PC", 2300, 128, 140, 147)']],
-      U: [['=DERATE.HDT(C!A1:D40, "A")', '=DERATE.HDT(C!A1:D40, "B")', '=DERATE.MODULUS(C!A1:D40, 23, 0.00277778)', '=DERATE.MODULUS(C!A1:D40, 80, "1000 h")']],
+      U: [
+        [
+          '=DERATE.HDT(C!A1:D40, "A")',
+          '=DERATE.HDT(C!A1:D40, "B")',
+          '=DERATE.MODULUS(C!A1:D40, 23, 0.00277778)',
+          '=DERATE.MODULUS(C!A1:D40, 80, "1000 h")',
+        ],
+      ],
     });
     const r = calibrateDatasheet('PC', {
       modulus23MPa: 2300,
@@ -262,8 +286,14 @@ describe('DERATE.CALIBRATE and DERATE.CALCHECK', () => {
     // The calibrated block reproduces the datasheet numbers it was given, within their tolerances (the calibration's own claim).
     expectClose(cell(hf, 'U!A1') as number, 128, { abs: 2, source: 'the given HDT/A (ISO 75-2 method A, 1.80 MPa), tolerance 2 K' });
     expectClose(cell(hf, 'U!B1') as number, 140, { abs: 2, source: 'the given HDT/B (ISO 75-2 method B, 0.45 MPa), tolerance 2 K' });
-    expectClose(cell(hf, 'U!A1') as number, simulateHdt(m, 1.8).temperatureC ?? NaN, { rel: 1e-12, source: 'engine: calibrateDatasheet record' });
-    expectClose(cell(hf, 'U!D1') as number, modulusMPa(m, 1000 * H, cToKelvin(80)), { rel: 1e-12, source: 'engine: calibrateDatasheet record' });
+    expectClose(cell(hf, 'U!A1') as number, simulateHdt(m, 1.8).temperatureC ?? NaN, {
+      rel: 1e-12,
+      source: 'engine: calibrateDatasheet record',
+    });
+    expectClose(cell(hf, 'U!D1') as number, modulusMPa(m, 1000 * H, cToKelvin(80)), {
+      rel: 1e-12,
+      source: 'engine: calibrateDatasheet record',
+    });
     expectClose(cell(hf, 'U!C1') as number, 2300, { rel: 0.05, source: 'the given modulus at 23 degC (about 10 s), tolerance 5 %' });
     expect(cell(hf, 'K!A1')).toBe('input');
     expect(cell(hf, 'K!B2')).toBe(r.residuals[0]?.given ?? NaN);
@@ -279,7 +309,17 @@ describe('DERATE.CALIBRATE and DERATE.CALCHECK', () => {
     expect(String(row(block, '# caution')[1])).toMatch(/not the grade elsewhere/);
     expect(block.some((r) => typeof r[3] === 'string' && r[3].includes('(fitted: '))).toBe(true);
     const check = table(matrix('CALCHECK').invoke(...ARGS));
-    expect(check.map((r) => r[0])).toEqual(['input', 'Tg', 'modulus at 23 degC', 'HDT 1.8 MPa', 'HDT 0.45 MPa', 'quality', 'fitted', 'notes', 'caution']);
+    expect(check.map((r) => r[0])).toEqual([
+      'input',
+      'Tg',
+      'modulus at 23 degC',
+      'HDT 1.8 MPa',
+      'HDT 0.45 MPa',
+      'quality',
+      'fitted',
+      'notes',
+      'caution',
+    ]);
     expect(String(row(check, 'quality')[1])).toMatch(/^good \(good: every input within its tolerance/);
   });
 
@@ -298,7 +338,11 @@ describe('DERATE.CALIBRATE and DERATE.CALCHECK', () => {
 describe('DERATE.DMAFIT', () => {
   it('spills the engine DMA fit as a block usable as a material, with its quality', () => {
     const data = dmaCells();
-    const hf = derateWorkbook({ D: data, F: [[`=DERATE.DMAFIT("PC", D!A1:B${data.length}, 1)`]], U: [['=DERATE.MODULUS(F!A1:D40, 60, 1000)']] });
+    const hf = derateWorkbook({
+      D: data,
+      F: [[`=DERATE.DMAFIT("PC", D!A1:B${data.length}, 1)`]],
+      U: [['=DERATE.MODULUS(F!A1:D40, 60, 1000)']],
+    });
     const r = fitDma('PC', readDmaTable(data), { frequencyHz: 1 });
     expectClose(cell(hf, 'U!A1') as number, modulusMPa(compileMaterial(r.params), 1000 * H, cToKelvin(60)), {
       rel: 1e-12,
@@ -306,7 +350,9 @@ describe('DERATE.DMAFIT', () => {
     });
     hf.destroy();
     const block = table(matrix('DMAFIT').invoke([['PC']], data, '1 Hz'));
-    expect(row(block, '# quality')[1]).toBe(r.quality === 'good' ? 'good' : r.quality === 'fair' ? 'fair: use with care' : 'poor: do not rely on it');
+    expect(row(block, '# quality')[1]).toBe(
+      r.quality === 'good' ? 'good' : r.quality === 'fair' ? 'fair: use with care' : 'poor: do not rely on it',
+    );
     expect(String(row(block, '# fit')[1])).toMatch(/storage modulus at 1 Hz: RMS .* over 33 points/);
   });
 });
@@ -342,7 +388,10 @@ describe('Office: the functions loaded on first call', () => {
     );
     const creep = rt.table.get('CREEPMOD');
     if (!creep) throw new Error('not associated');
-    await expect(creep([['PC']], 80, 1000)).rejects.toMatchObject({ code: '#VALUE!', message: expect.stringContaining('could not load') as unknown });
+    await expect(creep([['PC']], 80, 1000)).rejects.toMatchObject({
+      code: '#VALUE!',
+      message: expect.stringContaining('could not load') as unknown,
+    });
     fail = false;
     const E = await creep([['PC']], 80, 1000);
     expect(E).toBe(scalar('CREEPMOD').invoke([['PC']], 80, 1000));

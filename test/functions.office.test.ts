@@ -126,14 +126,21 @@ describe('the built bundle dist/functions.js', () => {
       "globalThis.CustomFunctions = { associate: (id, fn) => table.set(id, fn), Error: E, ErrorCode: { invalidValue: '#VALUE!', notAvailable: '#N/A', invalidNumber: '#NUM!' } };",
       `await import(${JSON.stringify(pathToFileURL(resolve('dist/functions.js')).href)});`,
       "const creep = table.get('CREEPMOD')([['PC']], 80, 1000);",
-      "const isPromise = creep instanceof Promise;",
+      'const isPromise = creep instanceof Promise;',
       "const block = await table.get('CALIBRATE')([['PC']], 2300);",
       "let bad; try { await table.get('FITCURVES')('nothing'); } catch (e) { bad = e; }",
       "console.log(JSON.stringify({ ids: [...table.keys()].length, isPromise, creep: await creep, first: block[0], quality: block.find((r) => r[0] === '# quality')?.[1], bad: bad && bad.code }));",
     ].join('\n');
     const run = spawnSync(process.execPath, ['--input-type=module', '-e', script], { encoding: 'utf8' });
     expect(run.stderr).toBe('');
-    const out = JSON.parse(run.stdout) as { ids: number; isPromise: boolean; creep: number; first: unknown[]; quality: string; bad: string };
+    const out = JSON.parse(run.stdout) as {
+      ids: number;
+      isPromise: boolean;
+      creep: number;
+      first: unknown[];
+      quality: string;
+      bad: string;
+    };
     const metadata = JSON.parse(readFileSync('dist/functions.json', 'utf8')) as { functions: unknown[] };
     expect(out.ids).toBe(metadata.functions.length);
     expect(out.isPromise).toBe(true);
@@ -143,4 +150,3 @@ describe('the built bundle dist/functions.js', () => {
     expect(out.bad).toBe('#VALUE!');
   });
 });
-

@@ -447,7 +447,8 @@ function pronyMaterial(name: string, rows: unknown[][]): Material {
   for (const [i, row] of rows.entries()) {
     for (const c of row) {
       if (c instanceof SheetError) throw carried(name, c, `row ${i + 1} of the Prony table: `);
-      if (typeof c === 'boolean') throw problem(name, `row ${i + 1} of the Prony table: expects a number or text, got ${c ? 'TRUE' : 'FALSE'}`);
+      if (typeof c === 'boolean')
+        throw problem(name, `row ${i + 1} of the Prony table: expects a number or text, got ${c ? 'TRUE' : 'FALSE'}`);
     }
   }
   try {

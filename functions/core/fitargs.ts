@@ -3,7 +3,15 @@
  * names). Kept apart from args.ts because they pull in the engine's table readers, which only the
  * fitting functions (loaded on first call in Excel) need.
  */
-import { InputError, NUMERIC_FIELDS, readCurveTable, readDmaTable, type CurveSet, type DmaSweep, type NumericField } from '../../src/index.js';
+import {
+  InputError,
+  NUMERIC_FIELDS,
+  readCurveTable,
+  readDmaTable,
+  type CurveSet,
+  type DmaSweep,
+  type NumericField,
+} from '../../src/index.js';
 import { carried, problem, scalarOf, show, spec, type ArgSpec, type Common } from './args.js';
 import { isEmpty, isMatrix, SheetError } from './cells.js';
 
@@ -11,7 +19,8 @@ import { isEmpty, isMatrix, SheetError } from './cells.js';
 function tableCells(name: string, raw: unknown, what: string): unknown[][] {
   if (!isMatrix(raw) || raw.length < 2) {
     const one = isMatrix(raw) ? raw[0]?.[0] : raw;
-    if (isMatrix(raw) && (raw[0]?.length ?? 0) > 1) throw problem(name, `expects ${what}: a range with a header row and data rows, got one row`);
+    if (isMatrix(raw) && (raw[0]?.length ?? 0) > 1)
+      throw problem(name, `expects ${what}: a range with a header row and data rows, got one row`);
     if (isEmpty(one)) throw problem(name, `is empty; expects ${what}`);
     scalarOf(one, name, what);
     throw problem(name, `expects ${what}: a range with a header row and data rows, got one value`);
@@ -19,7 +28,8 @@ function tableCells(name: string, raw: unknown, what: string): unknown[][] {
   raw.forEach((row, i) =>
     row.forEach((c, j) => {
       if (c instanceof SheetError) throw carried(name, c, `row ${i + 1}, column ${j + 1}: `);
-      if (typeof c === 'boolean') throw problem(name, `row ${i + 1}, column ${j + 1}: expects a number or a header, got ${c ? 'TRUE' : 'FALSE'}`);
+      if (typeof c === 'boolean')
+        throw problem(name, `row ${i + 1}, column ${j + 1}: expects a number or a header, got ${c ? 'TRUE' : 'FALSE'}`);
       if (!(c === null || c === undefined || typeof c === 'number' || typeof c === 'string')) {
         throw problem(name, `row ${i + 1}, column ${j + 1}: an unsupported value`);
       }
@@ -38,7 +48,7 @@ function fromEngine<T>(name: string, f: () => T): T {
 }
 
 const CURVES_WHAT =
-  'a curve table (columns temperature_C, time_h or time_s, and modulus_MPa, creep_modulus_MPa or compliance_1/MPa; one row per point, each curve\'s rows together)';
+  "a curve table (columns temperature_C, time_h or time_s, and modulus_MPa, creep_modulus_MPa or compliance_1/MPa; one row per point, each curve's rows together)";
 
 /** Relaxation or creep curves at several temperatures, as a table range; read by the engine's reader. */
 export function curves(name: string): ArgSpec<CurveSet> {
@@ -93,12 +103,19 @@ export function fields(name: string): ArgSpec<NumericField[] | undefined> {
     const take = (c: unknown, where: string): void => {
       if (c instanceof SheetError) throw carried(name, c, where);
       if (isEmpty(c)) return;
-      if (typeof c !== 'string') throw problem(name, `${where}expects ${FIELDS_WHAT}, got ${typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c)}`);
-      texts.push(...c.split(/[,;]/).map((t) => t.trim()).filter((t) => t !== ''));
+      if (typeof c !== 'string')
+        throw problem(name, `${where}expects ${FIELDS_WHAT}, got ${typeof c === 'boolean' ? (c ? 'TRUE' : 'FALSE') : String(c)}`);
+      texts.push(
+        ...c
+          .split(/[,;]/)
+          .map((t) => t.trim())
+          .filter((t) => t !== ''),
+      );
     };
     if (isMatrix(raw) && !(raw.length === 1 && raw[0]?.length === 1)) {
       const cols = (raw[0] ?? []).length;
-      if (raw.length > 1 && cols > 1) throw problem(name, `expects ${FIELDS_WHAT} in one row or one column, got a range of ${raw.length} x ${cols} cells`);
+      if (raw.length > 1 && cols > 1)
+        throw problem(name, `expects ${FIELDS_WHAT} in one row or one column, got a range of ${raw.length} x ${cols} cells`);
       raw.flat().forEach((c, i) => take(c, `cell ${i + 1}: `));
     } else {
       const v = scalarOf(raw, name, FIELDS_WHAT);

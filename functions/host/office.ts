@@ -62,7 +62,11 @@ export function registerWithOffice(
  */
 export function officeCall(rt: CustomFunctionsRuntime, id: string, args: readonly unknown[]): unknown {
   const def = definition(id);
-  if (!def) throw toOfficeError(rt, new SheetError('#VALUE!', `internal error in Resin Derate (please report): DERATE.${id} is not in the part loaded for it`));
+  if (!def)
+    throw toOfficeError(
+      rt,
+      new SheetError('#VALUE!', `internal error in Resin Derate (please report): DERATE.${id} is not in the part loaded for it`),
+    );
   return officeFunction(rt, def)(...args);
 }
 
@@ -96,7 +100,10 @@ export function registerLazyWithOffice(
         part = await ready();
       } catch (e) {
         const why = e instanceof Error ? e.message : String(e);
-        throw toOfficeError(rt, new SheetError('#VALUE!', `DERATE.${id} could not load its part of the add-in (${why}); reload the add-in`));
+        throw toOfficeError(
+          rt,
+          new SheetError('#VALUE!', `DERATE.${id} could not load its part of the add-in (${why}); reload the add-in`),
+        );
       }
       return part.officeCall(rt, id, args);
     });

@@ -65,7 +65,8 @@ export default async function buildFunctions() {
   const lazy = files.filter((f) => loadsOnFirstCall(f));
   const lazyIds = associate.filter((a) => lazy.includes(a.sourceFileName)).map((a) => a.id);
   for (const f of lazy)
-    if (!associate.some((a) => a.sourceFileName === f)) throw new Error(`functions bundle: ${f} is marked on-first-call but defines no function`);
+    if (!associate.some((a) => a.sourceFileName === f))
+      throw new Error(`functions bundle: ${f} is marked on-first-call but defines no function`);
 
   const common = { bundle: true, platform: 'browser', target: 'es2020', logLevel: 'warning', legalComments: 'none' };
   rmSync(`dist/${LAZY_DIR}`, { recursive: true, force: true });
