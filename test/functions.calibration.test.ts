@@ -330,6 +330,10 @@ describe('DERATE.CALIBRATE and DERATE.CALCHECK', () => {
     expect((stray as SheetError).message).toMatch(/^creep_modulus: is missing: creep_time is given/);
     const tm = matrix('CALIBRATE').invoke([['PC']], null, null, null, null, 230);
     expect((tm as SheetError).message).toMatch(/^tm: is only used for semi-crystalline/);
+    const chosen = table(matrix('CALCHECK').invoke([['PC']], null, 128, 140, null, null, null, null, null, 'beta, tauTg_s'));
+    expect(String(row(chosen, 'fitted')[1])).toMatch(/^beta .*; tauTg_s /);
+    const tooMany = matrix('CALIBRATE').invoke([['PC']], null, 128, null, null, null, null, null, null, [['beta'], ['tauTg_s']]);
+    expect((tooMany as SheetError).message).toMatch(/^free: 2 parameters .* cannot be determined by 1 fitted input/);
     const none = matrix('CALIBRATE').invoke([['PC']]);
     expect((none as SheetError).message).toMatch(/give at least one datasheet input/);
   });
