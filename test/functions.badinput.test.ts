@@ -30,6 +30,12 @@ const SCALAR_RANGE: Bad = {
   says: '2 x 2',
 };
 
+const CURVE_HEADER = ['temperature_C', 'time_h', 'modulus_MPa'];
+/** Six points of a made-up relaxation curve (for the shape of the table only). */
+function curve(T: number): (string | number | null)[][] {
+  return [1, 2, 5, 10, 20, 50].map((h, i) => [T, h, 1000 - 10 * i]);
+}
+
 const BY_KIND: Record<ArgKind, readonly Bad[]> = {
   material: [
     { value: 66, code: '#VALUE!', says: 'family symbol' },
@@ -138,12 +144,63 @@ const BY_KIND: Record<ArgKind, readonly Bad[]> = {
     SCALAR_RANGE,
   ],
   count: [
-    { value: 1, code: '#VALUE!', says: 'whole number' },
+    { value: 0, code: '#VALUE!', says: 'whole number' },
     { value: 2.5, code: '#VALUE!', says: 'whole number' },
     { value: 5000, code: '#VALUE!', says: 'whole number' },
     SCALAR_RANGE,
   ],
   cycles: [{ value: 0, code: '#VALUE!', says: 'greater than zero' }, { value: 'many', code: '#VALUE!', says: 'many' }, SCALAR_RANGE],
+  curves: [
+    { value: 'hot', code: '#VALUE!', says: 'curve table' },
+    { value: SCALAR_RANGE.value, code: '#VALUE!', says: 'not a known column' },
+    { value: [CURVE_HEADER, [80, 1, 1000], [80, 2, 900]], code: '#VALUE!', says: 'at least 5' },
+    {
+      value: [CURVE_HEADER, ...curve(80), ...curve(100).map((r, i) => (i === 2 ? [100, '10 min', r[2]] : r))],
+      code: '#VALUE!',
+      says: 'mixed units',
+    },
+    {
+      value: [CURVE_HEADER, ...curve(80), ...curve(100).map((r, i) => (i === 2 ? [100, r[1], 'n/a'] : r))],
+      code: '#VALUE!',
+      says: 'not a number',
+    },
+    { value: [CURVE_HEADER, ...curve(80).map((r, i) => (i === 3 ? [80, r[1], null] : r))], code: '#VALUE!', says: 'is empty' },
+    { value: [CURVE_HEADER, ...curve(80).map((r, i) => (i === 3 ? [80, 0.5, r[2]] : r))], code: '#VALUE!', says: 'does not increase' },
+    { value: [CURVE_HEADER, [80, 1, UPSTREAM]], code: '#N/A', says: 'row 2, column 3: received the error #N/A' },
+  ],
+  sweep: [
+    { value: 'hot', code: '#VALUE!', says: 'DMA sweep table' },
+    {
+      value: [['temperature_C', 'storage_MPa'], ...[30, 40, 50, 60, 70, 80, 90, 100].map((T) => [T, 2000])].reverse(),
+      code: '#VALUE!',
+      says: 'not a known column',
+    },
+    {
+      value: [['temperature_C', 'storage_MPa'], ...[30, 40, 35, 60, 70, 80, 90, 100].map((T) => [T, 2000])],
+      code: '#VALUE!',
+      says: 'must increase',
+    },
+    { value: [['temperature_C', 'storage_MPa'], ...[30, 40, 50].map((T) => [T, 2000])], code: '#VALUE!', says: 'at least 8' },
+  ],
+  frequency: [
+    { value: 0, code: '#VALUE!', says: 'greater than zero' },
+    { value: '1 GHz', code: '#VALUE!', says: 'frequency' },
+    { value: 1e6, code: '#VALUE!', says: 'outside' },
+    SCALAR_RANGE,
+  ],
+  fields: [
+    { value: 'Tg_Cx', code: '#VALUE!', says: 'not a parameter name' },
+    { value: 'beta, warmth', code: '#VALUE!', says: '"warmth" is not a parameter name' },
+    {
+      value: [
+        ['beta', 'C1'],
+        ['C2_K', 'Tg_C'],
+      ],
+      code: '#VALUE!',
+      says: 'one row or one column',
+    },
+    { value: 66, code: '#VALUE!', says: 'parameter names' },
+  ],
 };
 
 function badValues(a: ArgSpec<unknown>): Bad[] {

@@ -19,6 +19,9 @@ const UNIT_WORDS: Record<string, RegExp> = {
   fraction: /fraction/,
   count: /count/,
   symbol: /symbol/,
+  Hz: /Hz/,
+  table: /table range/,
+  names: /[Pp]arameter names/,
 };
 
 let metadata: MetadataFunction[] = [];

@@ -3,6 +3,7 @@
  * Office): every definition is associated under its id, errors become CustomFunctions.Error objects
  * (thrown for a scalar result, in place inside a spill), and Excel's own error objects are read as input.
  */
+import { readFileSync } from 'node:fs';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { FunctionDef } from '../functions/core/define.js';
 import { registerWithOffice, type CustomFunctionsRuntime } from '../functions/host/office.js';
@@ -102,7 +103,7 @@ describe('Office host', () => {
 
 describe('the built bundle dist/functions.js', () => {
   it('associates every function id of dist/functions.json when CustomFunctions exists, and nothing otherwise', async () => {
-    const { existsSync, readFileSync } = await import('node:fs');
+    const { existsSync } = await import('node:fs');
     const vm = await import('node:vm');
     if (!existsSync('dist/functions.js')) throw new Error('dist/functions.js is missing: run npm run build first (npm test does)');
     const code = readFileSync('dist/functions.js', 'utf8');
@@ -112,5 +113,40 @@ describe('the built bundle dist/functions.js', () => {
     expect([...rt.table.keys()].sort()).toEqual(metadata.functions.map((f) => f.id).sort());
     expect(typeof rt.table.get('MODULUS')?.([['PC']], 80, 1000)).toBe('number');
     expect(() => vm.runInNewContext(code, {})).not.toThrow();
+  });
+
+  it('loads the part with the fitting functions on their first call, from beside functions.js', async () => {
+    // A real module load (not the VM): the start-up script's import() must find dist/fn-chunks/ relative to itself.
+    const { spawnSync } = await import('node:child_process');
+    const { pathToFileURL } = await import('node:url');
+    const { resolve } = await import('node:path');
+    const script = [
+      'class E { constructor(code, message) { this.code = code; this.message = message; } }',
+      'const table = new Map();',
+      "globalThis.CustomFunctions = { associate: (id, fn) => table.set(id, fn), Error: E, ErrorCode: { invalidValue: '#VALUE!', notAvailable: '#N/A', invalidNumber: '#NUM!' } };",
+      `await import(${JSON.stringify(pathToFileURL(resolve('dist/functions.js')).href)});`,
+      "const creep = table.get('CREEPMOD')([['PC']], 80, 1000);",
+      'const isPromise = creep instanceof Promise;',
+      "const block = await table.get('CALIBRATE')([['PC']], 2300);",
+      "let bad; try { await table.get('FITCURVES')('nothing'); } catch (e) { bad = e; }",
+      "console.log(JSON.stringify({ ids: [...table.keys()].length, isPromise, creep: await creep, first: block[0], quality: block.find((r) => r[0] === '# quality')?.[1], bad: bad && bad.code }));",
+    ].join('\n');
+    const run = spawnSync(process.execPath, ['--input-type=module', '-e', script], { encoding: 'utf8' });
+    expect(run.stderr).toBe('');
+    const out = JSON.parse(run.stdout) as {
+      ids: number;
+      isPromise: boolean;
+      creep: number;
+      first: unknown[];
+      quality: string;
+      bad: string;
+    };
+    const metadata = JSON.parse(readFileSync('dist/functions.json', 'utf8')) as { functions: unknown[] };
+    expect(out.ids).toBe(metadata.functions.length);
+    expect(out.isPromise).toBe(true);
+    expect(out.creep).toBe(defs.find((d) => d.id === 'CREEPMOD')?.invoke([['PC']], 80, 1000));
+    expect(out.first).toEqual(['field', 'value', 'unit', 'description']);
+    expect(out.quality).toBe('good');
+    expect(out.bad).toBe('#VALUE!');
   });
 });

@@ -11,6 +11,7 @@ import {
   KELVIN_OFFSET,
   ParameterError,
   paramsFromRecord,
+  pronyFromTable,
   parseStressMPa,
   parseTemperatureK,
   parseTimeS,
@@ -18,9 +19,11 @@ import {
   SECONDS_PER_YEAR,
   TEMP_SEARCH_K,
   TIME_SEARCH_S,
+  resolveMaterial,
   UnknownFamilyError,
   type Family,
   type Material,
+  type MaterialParams,
 } from '../../src/index.js';
 import { BLOCK_FIELDS, BLOCK_HEADER } from './block.js';
 import { isEmpty, isMatrix, SheetError } from './cells.js';
@@ -38,7 +41,11 @@ export type ArgKind =
   | 'stress'
   | 'strain'
   | 'count'
-  | 'cycles';
+  | 'cycles'
+  | 'curves'
+  | 'sweep'
+  | 'frequency'
+  | 'fields';
 
 /** One worksheet argument. `unit` is the unit of a bare number (or what the argument holds). */
 export interface ArgSpec<T> {
@@ -67,12 +74,12 @@ const STRAIN_MAX = 0.1;
 /** Upper bound of a cycle count: 100 years of one cycle a day is 36 525. */
 const CYCLES_MAX = 1e7;
 
-function problem(argument: string, text: string): ArgumentProblem {
+export function problem(argument: string, text: string): ArgumentProblem {
   return new ArgumentProblem('#VALUE!', argument, text);
 }
 
 /** An error value arriving as input keeps its code and says which argument it came through. */
-function carried(argument: string, e: SheetError, where = ''): ArgumentProblem {
+export function carried(argument: string, e: SheetError, where = ''): ArgumentProblem {
   return new ArgumentProblem(e.code, argument, `${where}received the error ${e.code}${e.message ? ` (${e.message})` : ''}`);
 }
 
@@ -81,7 +88,7 @@ function shapeText(m: unknown[][]): string {
 }
 
 /** One value from a scalar argument: unwraps a 1 x 1 range, rejects booleans, errors and bigger ranges. */
-function scalarOf(raw: unknown, name: string, what: string): number | string | null {
+export function scalarOf(raw: unknown, name: string, what: string): number | string | null {
   let v = raw;
   if (isMatrix(v)) {
     if (v.length === 1 && v[0]?.length === 1) v = v[0][0];
@@ -95,7 +102,7 @@ function scalarOf(raw: unknown, name: string, what: string): number | string | n
 }
 
 /** Cells of a one-row or one-column range (a single value counts as one cell). */
-function listOf(raw: unknown, name: string, what: string): (number | string)[] {
+export function listOf(raw: unknown, name: string, what: string): (number | string)[] {
   const cells: unknown[] = [];
   if (isMatrix(raw)) {
     const rows = raw.length;
@@ -126,12 +133,12 @@ function engine<T>(name: string, f: () => T): T {
   }
 }
 
-interface Common {
+export interface Common {
   optional?: boolean;
   default?: number | string;
 }
 
-function spec<T>(s: Omit<ArgSpec<T>, 'parse' | 'optional'> & Common, parseOne: (v: number | string) => T, what: string): ArgSpec<T> {
+export function spec<T>(s: Omit<ArgSpec<T>, 'parse' | 'optional'> & Common, parseOne: (v: number | string) => T, what: string): ArgSpec<T> {
   const optional = s.optional ?? false;
   const parse = (raw: unknown): T => {
     const v = scalarOf(raw, s.name, what);
@@ -160,7 +167,7 @@ function checkTimeS(name: string, s: number, input: number | string): number {
   return s;
 }
 
-function show(input: number | string): string {
+export function show(input: number | string): string {
   return typeof input === 'number' ? String(input) : `"${input}"`;
 }
 
@@ -217,10 +224,10 @@ function positiveMPa(name: string, v: number | string, max: number): number {
   return mpa;
 }
 
-/** A modulus (a required stiffness); parsed to MPa. */
-export function modulus(name: string): ArgSpec<number> {
+/** A modulus (a required stiffness, or an optional datasheet modulus); parsed to MPa. */
+export function modulus(name: string, o: Common = {}): ArgSpec<number> {
   return spec(
-    { name, kind: 'modulus', unit: 'MPa', shape: 'scalar', min: 0, max: MODULUS_MAX_MPA },
+    { name, kind: 'modulus', unit: 'MPa', shape: 'scalar', min: 0, max: MODULUS_MAX_MPA, ...o },
     (v) => positiveMPa(name, v, MODULUS_MAX_MPA),
     MODULUS_WHAT,
   );
@@ -384,9 +391,29 @@ function recordFromBlock(name: string, block: unknown[][]): Record<string, unkno
   return record;
 }
 
-const MATERIAL_WHAT = `${FAMILY_WHAT}, or a parameter block range (field, value) as spilled by DERATE.PARAMS`;
+const MATERIAL_WHAT = `${FAMILY_WHAT}, a parameter block range (field, value) as spilled by DERATE.PARAMS, or a Prony table range (first cell "prony") as spilled by DERATE.FITCURVES`;
 
-/** A family symbol or a parameter block; compiled to a material. */
+/**
+ * True for a comment row: its first cell is text starting with '#'. The fitting functions spill their
+ * fit quality, notes and cautions in such rows below a block or Prony table; reading the range back
+ * as a material skips them, so the whole spill can be passed on.
+ */
+export function isCommentRow(row: readonly unknown[]): boolean {
+  const first = row[0];
+  return typeof first === 'string' && first.trim().startsWith('#');
+}
+
+/** The range with comment rows blanked (kept in place, so row numbers in messages stay the user's). */
+function withoutComments(rows: unknown[][]): unknown[][] {
+  return rows.map((r) => (isCommentRow(r) ? r.map(() => null) : r));
+}
+
+function isPronyRange(rows: unknown[][]): boolean {
+  const first = rows[0]?.[0];
+  return typeof first === 'string' && first.trim().toLowerCase() === 'prony';
+}
+
+/** A family symbol, a parameter block or a Prony table; compiled to a material. */
 export function material(name: string): ArgSpec<Material> {
   const parse = (raw: unknown): Material => {
     if (isMatrix(raw) && !(raw.length === 1 && raw[0]?.length === 1)) {
@@ -395,10 +422,12 @@ export function material(name: string): ArgSpec<Material> {
       if (rows < 2 || cols < 2) {
         throw problem(
           name,
-          `a range must be a parameter block of at least 2 columns (field, value) and several rows, got ${rows} x ${cols} cells`,
+          `a range must be a parameter block or a Prony table of at least 2 columns (field, value) and several rows, got ${rows} x ${cols} cells`,
         );
       }
-      const record = recordFromBlock(name, raw);
+      const cells = withoutComments(raw);
+      if (isPronyRange(cells)) return pronyMaterial(name, cells);
+      const record = recordFromBlock(name, cells);
       try {
         return compileMaterial(paramsFromRecord(record));
       } catch (e) {
@@ -412,6 +441,41 @@ export function material(name: string): ArgSpec<Material> {
     return compileMaterial(familyOf(name, v).params);
   };
   return { name, kind: 'material', unit: 'symbol', shape: 'matrix', optional: false, parse };
+}
+
+function pronyMaterial(name: string, rows: unknown[][]): Material {
+  for (const [i, row] of rows.entries()) {
+    for (const c of row) {
+      if (c instanceof SheetError) throw carried(name, c, `row ${i + 1} of the Prony table: `);
+      if (typeof c === 'boolean')
+        throw problem(name, `row ${i + 1} of the Prony table: expects a number or text, got ${c ? 'TRUE' : 'FALSE'}`);
+    }
+  }
+  try {
+    return resolveMaterial(pronyFromTable(rows));
+  } catch (e) {
+    if (e instanceof InputError) throw problem(name, `Prony table: ${e.problem}`);
+    if (e instanceof ParameterError) throw problem(name, `Prony table: ${e.field} ${e.problem}`);
+    throw e;
+  }
+}
+
+const START_WHAT = `${FAMILY_WHAT}, or a parameter block range (field, value) as spilled by DERATE.PARAMS`;
+
+/**
+ * The starting point of a fit: a family symbol or a parameter block (not a Prony table, which has no
+ * four-region parameters to adjust); parsed to the parameter record.
+ */
+export function start(name: string): ArgSpec<MaterialParams> {
+  const any = material(name);
+  const parse = (raw: unknown): MaterialParams => {
+    const m = any.parse(raw);
+    if (m.prony) {
+      throw problem(name, `a Prony table cannot be the start of a fit (it has no four-region parameters to adjust); give ${START_WHAT}`);
+    }
+    return m.params;
+  };
+  return { ...any, parse };
 }
 
 /** Family symbols in one row or column. */

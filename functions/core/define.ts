@@ -31,6 +31,12 @@ export interface MatrixDef extends Base {
   readonly result: 'matrix';
   /** Rows and columns of the spilled result from the argument shapes, or undefined when they cannot be known in advance. */
   readonly spillSize: (shapes: readonly ArgShape[]) => readonly [number, number] | undefined;
+  /**
+   * 'exact' (default): spillSize is the size of every result. 'at-most': it is an upper bound (the
+   * size depends on the data, which a host like HyperFormula cannot see before evaluating); such a
+   * host pads the result with empty cells. Excel takes the result as it is.
+   */
+  readonly spillFits: 'exact' | 'at-most';
   invoke(...raw: unknown[]): MatrixResult;
 }
 
@@ -81,6 +87,7 @@ export function defineMatrix<const S extends readonly ArgSpec<unknown>[]>(d: {
   id: string;
   args: S;
   spillSize: (shapes: readonly ArgShape[]) => readonly [number, number] | undefined;
+  spillFits?: 'exact' | 'at-most';
   run: (...values: Values<S>) => (number | string | SheetError | null)[][] | SheetError;
 }): MatrixDef {
   return register({
@@ -88,6 +95,7 @@ export function defineMatrix<const S extends readonly ArgSpec<unknown>[]>(d: {
     args: d.args,
     result: 'matrix',
     spillSize: d.spillSize,
+    spillFits: d.spillFits ?? 'exact',
     invoke: (...raw: unknown[]) => safeMatrix(() => d.run(...parseAll(d.id, d.args, raw))),
   });
 }

@@ -51,13 +51,17 @@ function toCellError(e: SheetError): CellError {
   return new CellError(TO_HF[e.code], e.message);
 }
 
-function toHyperFormula(out: unknown, expected: readonly [number, number] | undefined): unknown {
+function toHyperFormula(out: unknown, expected: readonly [number, number] | undefined, fits: 'exact' | 'at-most' = 'exact'): unknown {
   if (out instanceof SheetError) return toCellError(out);
   if (!Array.isArray(out)) return out;
-  const rows = out as OutCell[][];
+  let rows = out as OutCell[][];
   // A spill that failed as a whole comes back as its one error: the engine shows it in the anchor cell.
   if (rows.length === 1 && rows[0]?.length === 1 && rows[0][0] instanceof SheetError && (!expected || expected[0] * expected[1] > 1)) {
     return toCellError(rows[0][0]);
+  }
+  // A result smaller than its bound is padded with empty cells (HyperFormula fixes a spill's size before evaluating).
+  if (fits === 'at-most' && expected && rows.length <= expected[0] && (rows[0]?.length ?? 0) <= expected[1]) {
+    rows = Array.from({ length: expected[0] }, (_, r) => Array.from({ length: expected[1] }, (_, c) => rows[r]?.[c] ?? null));
   }
   if (expected && (expected[0] !== rows.length || expected[1] !== (rows[0]?.length ?? 0))) {
     return new CellError(
@@ -99,7 +103,8 @@ export function derateHyperFormulaPlugin(defs: readonly FunctionDef[] = definiti
         ast.args as never,
         state as never,
         this.metadata(`DERATE.${def.id}`),
-        (...args: unknown[]) => toHyperFormula(def.invoke(...args.map(fromHyperFormula)), expected) as never,
+        (...args: unknown[]) =>
+          toHyperFormula(def.invoke(...args.map(fromHyperFormula)), expected, def.result === 'matrix' ? def.spillFits : 'exact') as never,
       );
     }
 

@@ -6,7 +6,7 @@
  * does exactly that, so the wrappers themselves only ever return values.
  */
 import { foreignError, isMatrix, SheetError, type ErrorCode } from '../core/cells.js';
-import { definitions, type FunctionDef } from '../core/define.js';
+import { definition, definitions, type FunctionDef } from '../core/define.js';
 
 /** The part of the custom-functions runtime used here (CustomFunctionsRuntime 1.2). */
 export interface CustomFunctionsRuntime {
@@ -54,4 +54,59 @@ export function registerWithOffice(
   const defs = definitions();
   for (const def of defs) rt.associate(def.id, officeFunction(rt, def));
   return defs.length;
+}
+
+/**
+ * Runs one loaded definition for Excel: the export of the part of the add-in loaded on first call
+ * (that part is its own bundle with its own registry; see scripts/build/20-functions.mjs).
+ */
+export function officeCall(rt: CustomFunctionsRuntime, id: string, args: readonly unknown[]): unknown {
+  const def = definition(id);
+  if (!def)
+    throw toOfficeError(
+      rt,
+      new SheetError('#VALUE!', `internal error in Resin Derate (please report): DERATE.${id} is not in the part loaded for it`),
+    );
+  return officeFunction(rt, def)(...args);
+}
+
+/** What the part loaded on first call exports. */
+export interface LoadedPart {
+  officeCall(rt: CustomFunctionsRuntime, id: string, args: readonly unknown[]): unknown;
+}
+
+/**
+ * Associates the ids whose functions live in the part of the add-in loaded on first call (the fitting
+ * functions, too big for the start-up script): each answers with a Promise, which the custom-functions
+ * runtime accepts. The first call loads the part (once; again after a failed load); later calls run at
+ * once. Does nothing outside Office.
+ */
+export function registerLazyWithOffice(
+  ids: readonly string[],
+  load: () => Promise<LoadedPart>,
+  rt: CustomFunctionsRuntime | undefined = (globalThis as { CustomFunctions?: CustomFunctionsRuntime }).CustomFunctions,
+): number {
+  if (!rt) return 0;
+  let loading: Promise<LoadedPart> | undefined;
+  const ready = (): Promise<LoadedPart> =>
+    (loading ??= load().catch((e: unknown) => {
+      loading = undefined;
+      throw e;
+    }));
+  for (const id of ids) {
+    rt.associate(id, async (...args: unknown[]) => {
+      let part: LoadedPart;
+      try {
+        part = await ready();
+      } catch (e) {
+        const why = e instanceof Error ? e.message : String(e);
+        throw toOfficeError(
+          rt,
+          new SheetError('#VALUE!', `DERATE.${id} could not load its part of the add-in (${why}); reload the add-in`),
+        );
+      }
+      return part.officeCall(rt, id, args);
+    });
+  }
+  return ids.length;
 }

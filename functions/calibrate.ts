@@ -1,0 +1,232 @@
+// @load on-first-call
+/**
+ * Datasheet calibration and the DMA fit: a parameter block that reproduces the user's numbers, and
+ * the table that shows how well. In Excel this file is loaded on the first call of one of its
+ * functions (the least-squares engine is too big for the start-up script; see scripts/build/20-functions.mjs).
+ */
+import {
+  calibrateDatasheet,
+  calibrationCheckRows,
+  fitDma,
+  InputError,
+  KELVIN_OFFSET,
+  type CalibrationResult,
+  type DatasheetInputs,
+  type MaterialParams,
+  type NumericField,
+} from '../src/index.js';
+import { modulus, optionalTemperature, problem, start, time } from './core/args.js';
+import { BLOCK_COLUMNS, BLOCK_ROWS } from './core/block.js';
+import type { OutCell } from './core/cells.js';
+import { defineMatrix } from './core/define.js';
+import { fields, frequency, sweep } from './core/fitargs.js';
+import { BLOCK_COMMENT_ROWS, FIT_CAUTION, fittedBlock, freeText, notesText, QUALITY_MEANING, sig } from './core/fitout.js';
+
+/** ISO 75-2 method stresses: A 1.80 MPa, B 0.45 MPa (ISO 75-2:2013, clause 4). */
+const HDT_A_MPA = 1.8;
+const HDT_B_MPA = 0.45;
+/** Time and temperature of a creep modulus when only the modulus is given: the 1000 h, 23 degC creep modulus of ISO 899-1 data sheets (common practice). */
+const CREEP_DEFAULT_TIME_S = 1000 * 3600;
+const CREEP_DEFAULT_TEMP_K = 23 + KELVIN_OFFSET;
+
+/** Engine argument names to the worksheet's. */
+const ARGUMENT: Record<string, string> = {
+  Tg: 'tg',
+  Tm: 'tm',
+  'hdt stress': 'hdt_a',
+  'hdt temperature': 'hdt_a',
+  'creep time': 'creep_time',
+  'creep temperature': 'creep_temp',
+  'creep modulus': 'creep_modulus',
+};
+
+const CALIBRATE_ARGS = [
+  start('start'),
+  modulus('modulus23', { optional: true }),
+  optionalTemperature('hdt_a'),
+  optionalTemperature('hdt_b'),
+  optionalTemperature('tg'),
+  optionalTemperature('tm'),
+  time('creep_time', { optional: true }),
+  optionalTemperature('creep_temp'),
+  modulus('creep_modulus', { optional: true }),
+  fields('free'),
+] as const;
+
+type Parsed = [
+  MaterialParams,
+  number | undefined,
+  number | undefined,
+  number | undefined,
+  number | undefined,
+  number | undefined,
+  number | undefined,
+  number | undefined,
+  number | undefined,
+  NumericField[] | undefined,
+];
+
+/** The last few calibrations, so that CALIBRATE and CALCHECK with the same arguments fit once. */
+const RECENT = new Map<string, CalibrationResult>();
+const RECENT_MAX = 8;
+
+function runCalibration(...[p, m23, hdtA, hdtB, tg, tm, creepT, creepK, creepE, free]: Parsed): CalibrationResult {
+  if (creepE === undefined && (creepT !== undefined || creepK !== undefined)) {
+    throw problem(
+      'creep_modulus',
+      `is missing: ${creepT !== undefined ? 'creep_time' : 'creep_temp'} is given, so give the creep modulus measured there (or clear it)`,
+    );
+  }
+  const inputs: DatasheetInputs = {
+    ...(m23 !== undefined ? { modulus23MPa: m23 } : {}),
+    ...(tg !== undefined ? { TgK: tg } : {}),
+    ...(tm !== undefined ? { TmK: tm } : {}),
+    hdt: [
+      ...(hdtA !== undefined ? [{ stressMPa: HDT_A_MPA, temperatureK: hdtA }] : []),
+      ...(hdtB !== undefined ? [{ stressMPa: HDT_B_MPA, temperatureK: hdtB }] : []),
+    ],
+    moduli:
+      creepE === undefined
+        ? []
+        : [{ kind: 'creep', timeS: creepT ?? CREEP_DEFAULT_TIME_S, temperatureK: creepK ?? CREEP_DEFAULT_TEMP_K, modulusMPa: creepE }],
+  };
+  const key = JSON.stringify([p, inputs, free ?? null]);
+  const cached = RECENT.get(key);
+  if (cached) return cached;
+  let r: CalibrationResult;
+  try {
+    r = calibrateDatasheet(p, inputs, free ? { free } : {});
+  } catch (e) {
+    if (e instanceof InputError && e.argument in ARGUMENT) throw problem(ARGUMENT[e.argument] ?? e.argument, e.problem);
+    throw e;
+  }
+  if (RECENT.size >= RECENT_MAX) RECENT.delete(RECENT.keys().next().value ?? '');
+  RECENT.set(key, r);
+  return r;
+}
+
+const QUALITY_RULE = 'good: every input within its tolerance; fair: within three tolerances; poor: otherwise, or not converged';
+
+function how(r: CalibrationResult): string {
+  const within = r.residuals.filter((x) => x.within).length;
+  return `${within} of ${r.residuals.length} inputs reproduced within tolerance (DERATE.CALCHECK lists them); fitted ${freeText(r.free)}; ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`;
+}
+
+export const CALIBRATE = defineMatrix({
+  id: 'CALIBRATE',
+  args: CALIBRATE_ARGS,
+  spillSize: () => [BLOCK_ROWS + BLOCK_COMMENT_ROWS, BLOCK_COLUMNS],
+  run: (...v) => {
+    const r = runCalibration(...(v as unknown as Parsed));
+    return fittedBlock(r.params, r.free, r.quality, how(r), r.notes);
+  },
+});
+
+/**
+ * Spills a parameter block calibrated to datasheet numbers (PARAMS layout; pass it as the material of any function), with fit quality and notes below. Screening estimate: reproduces the given points, not the grade elsewhere.
+ * @customfunction CALIBRATE
+ * @param start Starting point: family symbol such as "PC", or a parameter block range from DERATE.PARAMS.
+ * @param [modulus23] Short-term (tensile) modulus at 23 degC, MPa (or text with a unit such as "2.4 GPa").
+ * @param [hdt_a] HDT at 1.80 MPa (ISO 75 method A), degC (or text with a unit).
+ * @param [hdt_b] HDT at 0.45 MPa (ISO 75 method B), degC (or text with a unit).
+ * @param [tg] Glass transition temperature (DSC), degC (or text with a unit).
+ * @param [tm] Melting peak temperature (DSC), degC; semi-crystalline families only.
+ * @param [creep_time] Time of the creep modulus, hours (h) (or text such as "1000 h"); 1000 h if left empty.
+ * @param [creep_temp] Temperature of the creep modulus, degC (or text with a unit); 23 degC if left empty.
+ * @param [creep_modulus] Creep modulus (stress / creep strain) at creep_time and creep_temp, MPa (or text with a unit).
+ * @param [free] Parameter names to fit instead of the automatic choice, such as "tauTg_s, beta" (or a range of names); at most one per fitted input.
+ * @returns {any[][]} Parameter block (field, value, unit, description), then rows starting with # for quality, fit, notes and caution.
+ */
+export function calibrate(
+  start: unknown[][],
+  modulus23?: unknown,
+  hdt_a?: unknown,
+  hdt_b?: unknown,
+  tg?: unknown,
+  tm?: unknown,
+  creep_time?: unknown,
+  creep_temp?: unknown,
+  creep_modulus?: unknown,
+  free?: unknown[][],
+) {
+  return CALIBRATE.invoke(start, modulus23, hdt_a, hdt_b, tg, tm, creep_time, creep_temp, creep_modulus, free);
+}
+
+/** Inputs a calibration can have (modulus, two HDTs, Tg, Tm, one creep modulus), header and four summary rows. */
+const CHECK_ROWS = 1 + 6 + 4;
+
+export const CALCHECK = defineMatrix({
+  id: 'CALCHECK',
+  args: CALIBRATE_ARGS,
+  spillSize: () => [CHECK_ROWS, 7],
+  spillFits: 'at-most',
+  run: (...v) => {
+    const r = runCalibration(...(v as unknown as Parsed));
+    const table: OutCell[][] = calibrationCheckRows(r).map((row) => row.map((c) => (typeof c === 'number' ? sig(c) : c)));
+    const line = (label: string, text: string): OutCell[] => [label, text, null, null, null, null, null];
+    table.push(
+      line(
+        'quality',
+        `${QUALITY_MEANING[r.quality]} (${QUALITY_RULE}); ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`,
+      ),
+      line('fitted', freeText(r.free)),
+      line('notes', notesText(r.notes)),
+      line('caution', FIT_CAUTION),
+    );
+    return table;
+  },
+});
+
+/**
+ * Spills how a calibration reproduces each datasheet number (given, reproduced, unit, tolerance, within, set through), with its quality, fitted parameters and notes. Screening estimate; same arguments as DERATE.CALIBRATE.
+ * @customfunction CALCHECK
+ * @param start Starting point: family symbol such as "PC", or a parameter block range from DERATE.PARAMS.
+ * @param [modulus23] Short-term (tensile) modulus at 23 degC, MPa (or text with a unit such as "2.4 GPa").
+ * @param [hdt_a] HDT at 1.80 MPa (ISO 75 method A), degC (or text with a unit).
+ * @param [hdt_b] HDT at 0.45 MPa (ISO 75 method B), degC (or text with a unit).
+ * @param [tg] Glass transition temperature (DSC), degC (or text with a unit).
+ * @param [tm] Melting peak temperature (DSC), degC; semi-crystalline families only.
+ * @param [creep_time] Time of the creep modulus, hours (h) (or text such as "1000 h"); 1000 h if left empty.
+ * @param [creep_temp] Temperature of the creep modulus, degC (or text with a unit); 23 degC if left empty.
+ * @param [creep_modulus] Creep modulus (stress / creep strain) at creep_time and creep_temp, MPa (or text with a unit).
+ * @param [free] Parameter names to fit instead of the automatic choice, such as "tauTg_s, beta" (or a range of names).
+ * @returns {any[][]} Table: header, one row per input given (degC or MPa), then quality, fitted, notes and caution rows.
+ */
+export function calcheck(
+  start: unknown[][],
+  modulus23?: unknown,
+  hdt_a?: unknown,
+  hdt_b?: unknown,
+  tg?: unknown,
+  tm?: unknown,
+  creep_time?: unknown,
+  creep_temp?: unknown,
+  creep_modulus?: unknown,
+  free?: unknown[][],
+) {
+  return CALCHECK.invoke(start, modulus23, hdt_a, hdt_b, tg, tm, creep_time, creep_temp, creep_modulus, free);
+}
+
+export const DMAFIT = defineMatrix({
+  id: 'DMAFIT',
+  args: [start('start'), sweep('sweep_range'), frequency('frequency_Hz'), fields('free')],
+  spillSize: () => [BLOCK_ROWS + BLOCK_COMMENT_ROWS, BLOCK_COLUMNS],
+  run: (p, sw, hz, free) => {
+    const r = fitDma(p, sw, { frequencyHz: hz, ...(free ? { free } : {}) });
+    const text = `storage modulus at ${hz} Hz: RMS ${sig(r.rmsLog10)} decades, largest ${sig(r.maxLog10)} decades over ${r.points} points (good up to 0.02, fair up to 0.05); fitted ${freeText(r.free)}; ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`;
+    return fittedBlock(r.params, r.free, r.quality, text, r.notes);
+  },
+});
+
+/**
+ * Spills the parameter block fitted to a DMA storage-modulus temperature sweep (PARAMS layout, usable as a material), with fit quality and notes below. Screening estimate.
+ * @customfunction DMAFIT
+ * @param start Starting point: family symbol such as "PC", or a parameter block range from DERATE.PARAMS.
+ * @param sweep_range DMA table range: header temperature_C, storage_MPa (other units in the header, e.g. storage_GPa), temperatures increasing.
+ * @param frequency_Hz Test frequency of the sweep, Hz (a number, or text such as "1 Hz").
+ * @param [free] Parameter names to fit instead of the automatic choice, such as "Tg_C, beta" (or a range of names).
+ * @returns {any[][]} Parameter block (field, value, unit, description), then rows starting with # for quality, fit, notes and caution.
+ */
+export function dmafit(start: unknown[][], sweep_range: unknown[][], frequency_Hz: unknown, free?: unknown[][]) {
+  return DMAFIT.invoke(start, sweep_range, frequency_Hz, free);
+}
