@@ -5,5 +5,6 @@ export default defineConfig({
     include: ['test/**/*.test.ts'],
     testTimeout: 60_000,
     hookTimeout: 120_000,
+    reporters: ['default', './test/support/summary-reporter.ts'],
   },
 });
