@@ -187,8 +187,14 @@ describe('no dynamic code in the built bundles', () => {
     const { bundles, hits } = scanBundles();
     for (const b of ['cli.js', 'functions.js', 'taskpane.js', 'boot.js']) expect(bundles).toContain(b);
     // The functions loaded on first call and the pane's later chunks are scanned too.
-    expect(bundles.some((b) => /^fn-chunks\/fits-[\w-]+\.js$/.test(b)), bundles.join(', ')).toBe(true);
-    expect(bundles.some((b) => b.startsWith('pane-chunks/')), bundles.join(', ')).toBe(true);
+    expect(
+      bundles.some((b) => /^fn-chunks\/fits-[\w-]+\.js$/.test(b)),
+      bundles.join(', '),
+    ).toBe(true);
+    expect(
+      bundles.some((b) => b.startsWith('pane-chunks/')),
+      bundles.join(', '),
+    ).toBe(true);
     const ours = hits.filter((h) => !h.source.includes('node_modules/'));
     expect(ours, JSON.stringify(ours, null, 2)).toEqual([]);
     // Finding when this test was written (mathjs 15.2 tree-shaken to its unit system): no hit at all,
