@@ -10,6 +10,7 @@ import {
   shiftLog10,
 } from '../src/index.js';
 import { calibrationBench } from './calibration.js';
+import { wrapperBench } from './wrappers.js';
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -90,6 +91,7 @@ const result = {
   table_cell_ns: (tableMs * 1e6) / 10_000,
   table_cell_to_modulus_ratio: (tableMs * 1e6) / 10_000 / modulusEval,
   ...calibrationBench(),
+  ...wrapperBench(modulusEval, maxtempUs, tableMs),
 };
 
 if (process.argv.includes('--json')) {
@@ -110,5 +112,17 @@ if (process.argv.includes('--json')) {
   );
   console.log(
     `derating table 100 x 100 through the engine: ${tableMs.toFixed(2)} ms  (${result.table_cell_ns.toFixed(0)} ns a cell, ${result.table_cell_to_modulus_ratio.toFixed(2)} x one modulus evaluation)`,
+  );
+  console.log(
+    `GRID 100 x 100 through the wrapper, input parsing included: ${result.grid_100x100_wrapper_ms.toFixed(2)} ms  (target < 50 ms; ${result.grid_wrapper_cell_ns.toFixed(0)} ns a cell, ${result.grid_wrapper_cell_to_modulus_ratio.toFixed(2)} x one modulus evaluation, ${result.grid_wrapper_to_engine_table_ratio.toFixed(2)} x the engine table)`,
+  );
+  console.log(
+    `GRID 100 x 100 with every temperature as unit text ("12.0 degC"): ${result.grid_100x100_wrapper_text_temperatures_ms.toFixed(2)} ms`,
+  );
+  console.log(
+    `MAXTEMP through the wrapper: ${result.maxtemp_wrapper_us.toFixed(2)} us  (target < 20 us; ${result.maxtemp_wrapper_to_engine_ratio.toFixed(2)} x the engine solve)`,
+  );
+  console.log(
+    `cold load of dist/functions.js in a fresh Node process (vm context, stand-in CustomFunctions, ${result.functions_associated} functions associated): ${result.functions_cold_load_ms.toFixed(1)} ms  (process ${result.functions_cold_process_ms.toFixed(0)} ms vs ${result.node_empty_process_ms.toFixed(0)} ms for an empty one)`,
   );
 }
