@@ -10,49 +10,8 @@ import {
   shiftLog10,
 } from '../src/index.js';
 import { calibrationBench } from './calibration.js';
+import { pairedNs, timeNs } from './timing.js';
 import { wrapperBench } from './wrappers.js';
-
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)] ?? NaN;
-}
-
-/** Median nanoseconds per call of fn over `rounds` rounds of `inner` calls. */
-function timeNs(fn: (i: number) => number, inner: number, rounds = 31): number {
-  let sink = 0;
-  for (let i = 0; i < inner; i++) sink += fn(i);
-  const per: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const t0 = process.hrtime.bigint();
-    for (let i = 0; i < inner; i++) sink += fn(i);
-    per.push(Number(process.hrtime.bigint() - t0) / inner);
-  }
-  if (sink === 42.4242) console.log('');
-  return median(per);
-}
-
-/**
- * Two functions timed in alternating rounds, so that load from other jobs falls on both alike; the ratio is
- * the median of the per-round ratios b / a.
- */
-function pairedNs(
-  fa: (i: number) => number,
-  fb: (i: number) => number,
-  inner: number,
-  rounds = 41,
-): { a: number; b: number; ratio: number } {
-  const as: number[] = [];
-  const bs: number[] = [];
-  const ratios: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const a = timeNs(fa, inner, 1);
-    const b = timeNs(fb, inner, 1);
-    as.push(a);
-    bs.push(b);
-    ratios.push(b / a);
-  }
-  return { a: median(as), b: median(bs), ratio: median(ratios) };
-}
 
 const pc = compileMaterial(getFamily('PC').params);
 const pa = compileMaterial(getFamily('PA66-cond').params);

@@ -1,18 +1,7 @@
 /** Benchmarks of calibration and fitting: medians of repeated runs, in milliseconds. */
 import { calibrateDatasheet, compileMaterial, fitCurves, getFamily, KELVIN_OFFSET, modulusMPa, type Curve } from '../src/index.js';
 import { normal, seededRandom } from '../src/cli/demodata.js';
-
-function medianMs(fn: () => unknown, rounds: number): number {
-  fn();
-  const times: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const t0 = process.hrtime.bigint();
-    fn();
-    times.push(Number(process.hrtime.bigint() - t0) / 1e6);
-  }
-  times.sort((a, b) => a - b);
-  return times[Math.floor(times.length / 2)] ?? NaN;
-}
+import { medianMs } from './timing.js';
 
 const K = KELVIN_OFFSET;
 

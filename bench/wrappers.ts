@@ -10,35 +10,7 @@ import { SheetError } from '../functions/core/cells.js';
 import { MAXTEMP } from '../functions/limits.js';
 import { GRID } from '../functions/tables.js';
 import { FAMILIES } from '../src/index.js';
-
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)] ?? NaN;
-}
-
-/** Median milliseconds of fn over `rounds` runs after one warm-up. */
-function medianMs(fn: () => unknown, rounds: number): number {
-  fn();
-  const times: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const t0 = process.hrtime.bigint();
-    fn();
-    times.push(Number(process.hrtime.bigint() - t0) / 1e6);
-  }
-  return median(times);
-}
-
-/** Median nanoseconds per call of fn over rounds of `inner` calls. */
-function medianNs(fn: (i: number) => unknown, inner: number, rounds = 21): number {
-  for (let i = 0; i < inner; i++) fn(i);
-  const per: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const t0 = process.hrtime.bigint();
-    for (let i = 0; i < inner; i++) fn(i);
-    per.push(Number(process.hrtime.bigint() - t0) / inner);
-  }
-  return median(per);
-}
+import { median, medianMs, timeNs as medianNs } from './timing.js';
 
 function check(out: unknown, what: string): void {
   if (out instanceof SheetError) throw new Error(`${what} gave ${out.code} ${out.message}`);
