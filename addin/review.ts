@@ -4,22 +4,13 @@
  * The values shown in the in-page sheet come from the engine directly, by the same calls the worksheet
  * functions make.
  */
-import {
-  compileMaterial,
-  cToKelvin,
-  getFamily,
-  InputError,
-  modulusAfterHistory,
-  modulusMPa,
-  parseStressMPa,
-  parseTemperatureK,
-  parseTimeS,
-  kelvinToC,
-  paramsFromBlockRows,
-  SECONDS_PER_HOUR,
-  type Material,
-  type MaterialParams,
-} from '../src/index.js';
+import { InputError } from '../src/errors.js';
+import { getFamily } from '../src/families.js';
+import { modulusAfterHistory } from '../src/history.js';
+import { compileMaterial, modulusMPa, type Material } from '../src/model.js';
+import type { MaterialParams } from '../src/params.js';
+import { paramsFromBlockRows } from '../src/resolve.js';
+import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_HOUR } from '../src/units.js';
 import { cellAddress, columnName, qualified, type Box, type Cell } from './a1.js';
 import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from './notes.js';
 import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from './port.js';
