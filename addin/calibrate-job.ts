@@ -14,14 +14,6 @@ import { CALIBRATION_NOTE, CAUTION } from './notes.js';
 import type { CellValue, CellWrite } from './port.js';
 import type { Plan } from './writer.js';
 
-export {
-  CALIBRATION_FIELD_NAMES,
-  QUALITY_TEXT,
-  readCalibration,
-  type CalibrationFields,
-  type CalibrationRequest,
-} from './calibrate-form.js';
-
 /** The engine's argument names, as the pane's fields. */
 const ENGINE_ARGUMENT: Record<string, string> = {
   modulus23: N.modulus23,
