@@ -4,26 +4,16 @@
  * The values shown in the in-page sheet come from the engine directly, by the same calls the worksheet
  * functions make.
  */
-import {
-  ALL_KEYS,
-  compileMaterial,
-  cToKelvin,
-  getFamily,
-  InputError,
-  modulusAfterHistory,
-  modulusMPa,
-  parseStressMPa,
-  parseTemperatureK,
-  parseTimeS,
-  kelvinToC,
-  paramsFromRecord,
-  SECONDS_PER_HOUR,
-  type Material,
-  type MaterialParams,
-} from '../src/index.js';
+import { InputError } from '../src/errors.js';
+import { getFamily } from '../src/families.js';
+import { modulusAfterHistory } from '../src/history.js';
+import { compileMaterial, modulusMPa, type Material } from '../src/model.js';
+import type { MaterialParams } from '../src/params.js';
+import { paramsFromBlockRows } from '../src/resolve.js';
+import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_HOUR } from '../src/units.js';
 import { cellAddress, columnName, qualified, type Box, type Cell } from './a1.js';
 import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from './notes.js';
-import { isBlank, type CellValue, type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from './port.js';
+import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from './port.js';
 import type { Plan } from './writer.js';
 
 export type Candidate =
@@ -94,38 +84,22 @@ export function checkCycle(steps: readonly CycleStep[], cycles: number): void {
   if (!(cycles >= 1) || !Number.isFinite(cycles)) throw new InputError('cycles', `must be a number of at least 1, got ${cycles}`);
 }
 
-const FIELD_BY_LOWER = new Map<string, string>(ALL_KEYS.map((k) => [k.toLowerCase(), k]));
-
 /**
  * Turns a parameter block read from the sheet into parameters, reading it as the material arguments
- * do: an optional 'field' header row, field names (any case) in the first column, values in the second,
- * further columns ignored. Errors name the range.
+ * do (the engine's paramsFromBlockRows: an optional 'field' header row, field names in any case in the
+ * first column, values in the second, further columns ignored). Errors name the range.
  */
 export function paramsFromBlock(content: RangeContent, where: string): MaterialParams {
   const first = content.values[0];
   if (!first || first.length < 2 || content.values.length < 2) {
     throw new InputError(where, 'a parameter block has at least two columns (field names, values) and several rows');
   }
-  const record: Record<string, CellValue> = {};
-  content.values.forEach((row, i) => {
-    const [k, v] = row;
-    if (isBlank(k)) {
-      if (row.slice(1).some((c) => !isBlank(c))) throw new InputError(where, `row ${i + 1} has a value but no field name`);
-      return;
-    }
-    if (typeof k !== 'string') throw new InputError(where, `row ${i + 1}: the first column holds field names, found ${String(k)}`);
-    const typed = k.trim();
-    if (i === 0 && typed.toLowerCase() === 'field') return;
-    const field = FIELD_BY_LOWER.get(typed.toLowerCase());
-    if (field === undefined) throw new InputError(where, `row ${i + 1}: '${typed}' is not a parameter name`);
-    if (field in record) throw new InputError(where, `row ${i + 1}: the field '${field}' appears twice`);
-    record[field] = v === undefined ? '' : v;
-  });
   try {
-    const p = paramsFromRecord(record);
+    const p = paramsFromBlockRows(content.values, { argument: where });
     compileMaterial(p);
     return p;
   } catch (e) {
+    if (e instanceof InputError) throw e;
     throw new InputError(where, e instanceof Error ? e.message : String(e));
   }
 }

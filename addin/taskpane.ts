@@ -4,18 +4,17 @@
  * Office adapter is used; anywhere else (the preview, the browser tests) the in-memory sheet is drawn
  * beside the pane.
  */
-import { FAMILIES, getFamily, InputError, ParameterError, UnknownFamilyError, type CalibrationResult } from '../src/index.js';
+import type { CalibrationResult } from '../src/calibrate.js';
+import { InputError, ParameterError, UnknownFamilyError } from '../src/errors.js';
+import { FAMILIES, getFamily } from '../src/families.js';
 import { parseRef, qualified, type Box, type Cell } from './a1.js';
 import {
   CALIBRATION_FIELD_NAMES,
-  calibratedBlockBox,
-  calibrationPlan,
   QUALITY_TEXT,
   readCalibration,
-  runCalibration,
   type CalibrationFields,
   type CalibrationRequest,
-} from './calibrate-job.js';
+} from './calibrate-form.js';
 import { byId, h } from './dom.js';
 import { familyBlockPlan, searchFamilies, summarize } from './families-job.js';
 import { MemoryWorkbook } from './memory-sheet.js';
@@ -712,6 +711,18 @@ function num(x: number | null, unit: string): (string | HTMLElement)[] {
   return [`${Number(x.toPrecision(4))} `, h('span', { class: 'unit' }, unit)];
 }
 
+type CalibrateJob = typeof import('./calibrate-job.js');
+let calibrateJob: Promise<CalibrateJob> | null = null;
+
+/** The calibration code (the engine's least-squares fit and the block layout), fetched on first use as its own chunk. */
+function loadCalibrateJob(): Promise<CalibrateJob> {
+  calibrateJob ??= import('./calibrate-job.js').catch((e: unknown) => {
+    calibrateJob = null;
+    throw e;
+  });
+  return calibrateJob;
+}
+
 async function calibrate(): Promise<void> {
   const button = byId<HTMLButtonElement>('calibrate');
   button.disabled = true;
@@ -721,8 +732,8 @@ async function calibrate(): Promise<void> {
     markInvalid(null);
     say(`Calibrating ${request.start.params.id} to your datasheet numbers...`, 'info');
     // Let the message paint before the fit takes the main thread (well under a second).
-    await new Promise((r) => setTimeout(r, 0));
-    const result = runCalibration(request);
+    const [job] = await Promise.all([loadCalibrateJob(), new Promise((r) => setTimeout(r, 0))]);
+    const result = job.runCalibration(request);
     state.calibration = { request, result };
     renderCalibration(result);
     byId('status').replaceChildren();
@@ -786,10 +797,11 @@ async function writeCalibration(): Promise<void> {
     const target = await resolveRange(byId<HTMLInputElement>('cal-target').value, 'block target');
     markInvalid(null);
     byId('status').replaceChildren();
-    const plan = calibrationPlan(current.request, current.result);
+    const job = await loadCalibrateJob();
+    const plan = job.calibrationPlan(current.request, current.result);
     const record = await safeWrite(plan, target.sheet, { row: target.box.top, col: target.box.left });
     if (!record) return;
-    const box = calibratedBlockBox(current.result, { row: record.receipt.box.top, col: record.receipt.box.left });
+    const box = job.calibratedBlockBox(current.result, { row: record.receipt.box.top, col: record.receipt.box.left });
     const where = qualified(record.receipt.sheet, box, false);
     say(
       `Wrote the calibrated block ${current.result.params.id} to ${where}${record.createdSheet ? ` on the new sheet ${record.createdSheet}` : ''}, with the datasheet check and the cautions below it. Pass the block as the material of any DERATE function, e.g. =DERATE.MODULUS(${qualified(record.receipt.sheet, box)}, 80, "1000 h").`,

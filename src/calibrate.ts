@@ -394,7 +394,7 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   if (!converged) notes.push(`the least-squares fit did not converge (${reason}); the record is the best point found`);
   if (quality === 'poor' && fits.some((f) => f.label.startsWith('HDT') && !residuals.find((x) => x.input === f.label)?.within)) {
     notes.push(
-      'an HDT is a threshold crossing: where the modulus runs close to the end-point modulus over a range of temperature, the simulated HDT jumps between regimes and some datasheet pairs cannot be met together; try fewer inputs or other parameters (free)',
+      'an HDT is a threshold crossing: where the modulus runs close to the end-point modulus over a range of temperature, the simulated HDT jumps between regimes and some datasheet pairs cannot be met together; calibrate to fewer inputs, or choose other parameters to fit',
     );
   }
   return {

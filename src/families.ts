@@ -411,7 +411,8 @@ export function suggestFamilies(text: string): string[] {
     .map((s) => s.id);
 }
 
-function editDistance(a: string, b: string): number {
+/** Levenshtein distance (insertions, deletions and substitutions each count 1). */
+export function editDistance(a: string, b: string): number {
   let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
   for (let i = 1; i <= a.length; i++) {
     const cur = [i];

@@ -1,10 +1,9 @@
 /** Turning what a user gives (a family id or a parameter record) into a compiled material. */
-import { ParameterError } from './errors.js';
-import { getFamily } from './families.js';
+import { InputError, ParameterError } from './errors.js';
+import { editDistance, getFamily } from './families.js';
 import { compileMaterial, type Material } from './model.js';
 import { KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
 import { compilePronyMaterial, isPronySpec, isPronyTable, pronyFromTable, type PronyMaterialSpec } from './pronymaterial.js';
-import { InputError } from './errors.js';
 import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
 
 /** A family id (case-insensitive), a parameter record, or a Prony-series material. */
@@ -70,23 +69,103 @@ export function paramsToRecord(p: MaterialParams): Record<string, string | numbe
   return out;
 }
 
+/** True for an empty cell as hosts pass it: null, undefined or blank text. */
+function isBlankCell(c: unknown): boolean {
+  return c === null || c === undefined || (typeof c === 'string' && c.trim() === '');
+}
+
 /**
- * A material from a worksheet range (rows of cells): a Prony table (first cell 'prony', see
- * pronymaterial.ts) or a parameter block of key / value rows (paramsToRecord order or any order).
- * Wholly empty rows are skipped; a row that is not a key and a value is an error naming the row.
+ * True for a comment row: its first cell is text starting with '#'. The fitting functions and the task
+ * pane write fit quality, notes and cautions in such rows below a block or Prony table; reading the
+ * range back as a material skips them, so the whole spill can be passed on.
  */
-export function materialInputFromRange(rows: readonly (readonly unknown[])[]): MaterialInput {
-  if (isPronyTable(rows)) return pronyFromTable(rows);
+export function isCommentRow(row: readonly unknown[]): boolean {
+  const first = row[0];
+  return typeof first === 'string' && first.trim().startsWith('#');
+}
+
+/** The range with comment rows blanked (kept in place, so row numbers in messages stay the user's). */
+export function blankCommentRows(rows: readonly (readonly unknown[])[]): unknown[][] {
+  return rows.map((r) => (isCommentRow(r) ? r.map(() => null) : [...r]));
+}
+
+/** How a host reads a parameter block from its cells (see paramsFromBlockRows). */
+export interface BlockReadOptions {
+  /** The input named in errors (a worksheet argument, a range address); default 'material'. */
+  readonly argument?: string;
+  /**
+   * Called for each field-name cell (where = 'row N: ') and each value cell (where = 'field F: ') before
+   * the cell is read, so that a host can refuse its own values (a worksheet error arriving as input).
+   */
+  readonly checkCell?: (cell: unknown, where: string) => void;
+  /** Appended, in parentheses, to the message for a name that is not a parameter (where to find a complete block). */
+  readonly hint?: string;
+}
+
+const KEY_BY_LOWER = new Map([...KNOWN_KEYS].map((k) => [k.toLowerCase(), k]));
+
+/** Up to three parameter names close to a mistyped one. */
+function closestKeys(typed: string): string[] {
+  const k = typed.toLowerCase();
+  return [...KNOWN_KEYS]
+    .map((f) => ({ f, d: editDistance(k, f.toLowerCase()) }))
+    .filter((x) => x.d <= Math.max(2, Math.floor(k.length / 3)))
+    .sort((a, b) => a.d - b.d)
+    .slice(0, 3)
+    .map((x) => x.f);
+}
+
+/**
+ * Parameters from a parameter block read back from cells, as DERATE.PARAMS spills it: field names (any
+ * case) in the first column, values in the second, further columns (unit, description) ignored, an
+ * optional 'field' header row, comment rows ('#...') and empty rows skipped. Layout problems throw
+ * InputError naming the argument and the row (row numbers are the range's own); values are checked by
+ * paramsFromRecord (ParameterError).
+ */
+export function paramsFromBlockRows(rows: readonly (readonly unknown[])[], options: BlockReadOptions = {}): MaterialParams {
+  const argument = options.argument ?? 'material';
+  const fail = (problem: string): never => {
+    throw new InputError(argument, problem);
+  };
   const record: Record<string, unknown> = {};
-  rows.forEach((r, i) => {
-    const cells = r.map((c) => (typeof c === 'string' ? c.trim() : c));
-    if (cells.every((c) => c === null || c === undefined || c === '')) return;
-    const [key, value, ...extra] = cells;
-    if (typeof key !== 'string' || key === '' || extra.some((c) => !(c === null || c === undefined || c === ''))) {
-      throw new InputError('material', `row ${i + 1} of the parameter block must be a name and a value`);
+  rows.forEach((row, i) => {
+    if (isCommentRow(row)) return;
+    const key = row[0];
+    if (isBlankCell(key)) {
+      if (row.slice(1).some((c) => !isBlankCell(c))) fail(`row ${i + 1} of the parameter block has a value but no field name`);
+      return;
     }
-    if (key in record) throw new InputError('material', `row ${i + 1}: '${key}' appears twice in the parameter block`);
-    record[key] = value;
+    options.checkCell?.(key, `row ${i + 1}: `);
+    if (typeof key !== 'string') return fail(`row ${i + 1}: the first column must hold field names, got ${String(key)}`);
+    const typed = key.trim();
+    if (i === 0 && typed.toLowerCase() === 'field') return;
+    const field = KEY_BY_LOWER.get(typed.toLowerCase());
+    if (field === undefined) {
+      const near = closestKeys(typed);
+      const hint = near.length > 0 ? `; did you mean ${near.map((f) => `"${f}"`).join(', ')}?` : '';
+      return fail(`row ${i + 1}: "${typed}" is not a parameter name${hint}${options.hint ? ` (${options.hint})` : ''}`);
+    }
+    if (field in record) fail(`row ${i + 1}: the field "${field}" appears twice`);
+    const value = row[1];
+    options.checkCell?.(value, `field ${field}: `);
+    if (typeof value === 'boolean') fail(`field ${field}: expects a number or text, got ${value ? 'TRUE' : 'FALSE'}`);
+    record[field] = isBlankCell(value) ? null : value;
   });
   return paramsFromRecord(record);
+}
+
+/**
+ * A material from a worksheet range (rows of cells, comment rows skipped): a Prony table (first cell
+ * 'prony', see pronymaterial.ts) or a parameter block of name / value rows, read by paramsFromBlockRows; here a row
+ * may hold only the name and the value (no unit or description columns).
+ */
+export function materialInputFromRange(rows: readonly (readonly unknown[])[], options: BlockReadOptions = {}): MaterialInput {
+  const cells = blankCommentRows(rows);
+  if (isPronyTable(cells)) return pronyFromTable(cells);
+  cells.forEach((r, i) => {
+    if (r.slice(2).some((c) => !isBlankCell(c))) {
+      throw new InputError(options.argument ?? 'material', `row ${i + 1} of the parameter block must be a name and a value`);
+    }
+  });
+  return paramsFromBlockRows(cells, options);
 }

@@ -13,15 +13,8 @@ import {
   TEXT_FIELDS,
   type CalibrationResult,
 } from '../src/index.js';
-import {
-  calibratedBlockBox,
-  calibrationLayout,
-  calibrationPlan,
-  readCalibration,
-  runCalibration,
-  type CalibrationFields,
-  type CalibrationRequest,
-} from '../addin/calibrate-job.js';
+import { readCalibration, type CalibrationFields, type CalibrationRequest } from '../addin/calibrate-form.js';
+import { calibratedBlockBox, calibrationLayout, calibrationPlan, runCalibration } from '../addin/calibrate-job.js';
 import { paramsBlockRows } from '../addin/families-job.js';
 import { MemoryWorkbook } from '../addin/memory-sheet.js';
 import { CALIBRATION_NOTE, CAUTION } from '../addin/notes.js';

@@ -7,7 +7,8 @@
 import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { compileMaterial, cToKelvin, getFamily, modulusMPa, simulateHdt } from '../src/index.js';
-import { calibrationPlan, readCalibration, runCalibration } from '../addin/calibrate-job.js';
+import { readCalibration } from '../addin/calibrate-form.js';
+import { calibrationPlan, runCalibration } from '../addin/calibrate-job.js';
 import { cellAddress } from '../addin/a1.js';
 import { blockRows } from '../addin/families-job.js';
 import { reviewPlan, type Load } from '../addin/review.js';

@@ -98,6 +98,13 @@ describe('datasheet calibration round trips', () => {
     expect(r.free.some((f) => f.atBound)).toBe(true);
     expect(r.notes.join(' ')).toMatch(/bound/);
   });
+  it('explains a poor HDT fit in words that fit every interface (CLI, worksheet, task pane)', () => {
+    const r = calibrateDatasheet('PC', { TgK: 147 + K, hdt: [{ stressMPa: 1.8, temperatureK: 60 + K }] });
+    const note = r.notes.find((n) => n.startsWith('an HDT is a threshold crossing'));
+    // ISO 75-1: the HDT is the temperature at which a set deflection is reached, i.e. a threshold crossing.
+    expect(note).toMatch(/calibrate to fewer inputs, or choose other parameters to fit$/);
+    expect(note).not.toMatch(/\(free\)|--free/);
+  });
 });
 
 describe('datasheet calibration of networks and the check table', () => {

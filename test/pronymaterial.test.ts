@@ -88,6 +88,18 @@ describe('Prony material', () => {
     expectClose(modulusMPa(m, 10, 23 + K), 2350, { rel: 1e-9, source: 'PC family E23 anchor (families.ts, common practice)' });
     expect(() => materialInputFromRange([['Tg_C', 100, 5]])).toThrow(/row 1 of the parameter block must be a name and a value/);
   });
+  it('reads a block from a range as the worksheet material arguments do (header, any case, comments, suggestions)', () => {
+    const block = Object.entries(paramsToRecord(getFamily('PC').params)).map(([k, v]) => [k.toLowerCase(), v]);
+    const m = resolveMaterial(materialInputFromRange([['field', 'value'], ...block, ['# fit quality: invented note', null]]));
+    expectClose(modulusMPa(m, 10, 23 + K), 2350, { rel: 1e-9, source: 'PC family E23 anchor (families.ts, common practice)' });
+    const typo = [
+      ['kind', 'amorphous'],
+      ['Tg_Cx', 100],
+    ];
+    expect(() => materialInputFromRange(typo, { argument: 'block' })).toThrow(
+      /block: row 2: "Tg_Cx" is not a parameter name; did you mean "Tg_C"/,
+    );
+  });
   it('refuses bad tables with the row named', () => {
     const table = pronyToTable(SPEC);
     const bad = table.map((r) => [...r]);

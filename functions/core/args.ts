@@ -10,7 +10,9 @@ import {
   kelvinToC,
   KELVIN_OFFSET,
   ParameterError,
-  paramsFromRecord,
+  blankCommentRows,
+  isPronyTable,
+  paramsFromBlockRows,
   pronyFromTable,
   parseStressMPa,
   parseTemperatureK,
@@ -25,7 +27,6 @@ import {
   type Material,
   type MaterialParams,
 } from '../../src/index.js';
-import { BLOCK_FIELDS, BLOCK_HEADER } from './block.js';
 import { isEmpty, isMatrix, SheetError } from './cells.js';
 import { ArgumentProblem } from './errors.js';
 
@@ -340,78 +341,7 @@ export function family(name: string): ArgSpec<Family> {
   );
 }
 
-function editDistance(a: string, b: string): number {
-  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    const cur = [i];
-    for (let j = 1; j <= b.length; j++)
-      cur[j] = Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + (a[i - 1] === b[j - 1] ? 0 : 1));
-    prev = cur;
-  }
-  return prev[b.length] ?? 0;
-}
-
-/** Field names are matched without regard to case; a typo gets up to three close names. */
-const FIELD_BY_LOWER = new Map(BLOCK_FIELDS.map((f) => [f.toLowerCase(), f]));
-
-function closestFields(key: string): string[] {
-  const k = key.toLowerCase();
-  return BLOCK_FIELDS.map((f) => ({ f, d: editDistance(k, f.toLowerCase()) }))
-    .filter((x) => x.d <= Math.max(2, Math.floor(k.length / 3)))
-    .sort((a, b) => a.d - b.d)
-    .slice(0, 3)
-    .map((x) => x.f);
-}
-
-/** Parameter record from a block range (field names in the first column, values in the second). */
-function recordFromBlock(name: string, block: unknown[][]): Record<string, unknown> {
-  const record: Record<string, unknown> = {};
-  block.forEach((row, i) => {
-    const key = row[0];
-    if (isEmpty(key)) {
-      if (row.slice(1).some((c) => !isEmpty(c))) throw problem(name, `row ${i + 1} of the parameter block has a value but no field name`);
-      return;
-    }
-    if (key instanceof SheetError) throw carried(name, key, `row ${i + 1}: `);
-    if (typeof key !== 'string') throw problem(name, `row ${i + 1}: the first column must hold field names, got ${String(key)}`);
-    const typed = key.trim();
-    if (i === 0 && typed.toLowerCase() === BLOCK_HEADER[0]) return;
-    const field = FIELD_BY_LOWER.get(typed.toLowerCase());
-    if (field === undefined) {
-      const near = closestFields(typed);
-      const hint = near.length > 0 ? `; did you mean ${near.map((f) => `"${f}"`).join(', ')}?` : '';
-      throw problem(name, `row ${i + 1}: "${typed}" is not a parameter name${hint} (DERATE.PARAMS("PC") shows a complete block)`);
-    }
-    if (field in record) throw problem(name, `row ${i + 1}: the field "${field}" appears twice`);
-    const value = row[1];
-    if (value instanceof SheetError) throw carried(name, value, `field ${field}: `);
-    if (typeof value === 'boolean') throw problem(name, `field ${field}: expects a number or text, got ${value ? 'TRUE' : 'FALSE'}`);
-    record[field] = isEmpty(value) ? null : value;
-  });
-  return record;
-}
-
 const MATERIAL_WHAT = `${FAMILY_WHAT}, a parameter block range (field, value) as spilled by DERATE.PARAMS, or a Prony table range (first cell "prony") as spilled by DERATE.FITCURVES`;
-
-/**
- * True for a comment row: its first cell is text starting with '#'. The fitting functions spill their
- * fit quality, notes and cautions in such rows below a block or Prony table; reading the range back
- * as a material skips them, so the whole spill can be passed on.
- */
-export function isCommentRow(row: readonly unknown[]): boolean {
-  const first = row[0];
-  return typeof first === 'string' && first.trim().startsWith('#');
-}
-
-/** The range with comment rows blanked (kept in place, so row numbers in messages stay the user's). */
-function withoutComments(rows: unknown[][]): unknown[][] {
-  return rows.map((r) => (isCommentRow(r) ? r.map(() => null) : r));
-}
-
-function isPronyRange(rows: unknown[][]): boolean {
-  const first = rows[0]?.[0];
-  return typeof first === 'string' && first.trim().toLowerCase() === 'prony';
-}
 
 /** A family symbol, a parameter block or a Prony table; compiled to a material. */
 export function material(name: string): ArgSpec<Material> {
@@ -425,11 +355,11 @@ export function material(name: string): ArgSpec<Material> {
           `a range must be a parameter block or a Prony table of at least 2 columns (field, value) and several rows, got ${rows} x ${cols} cells`,
         );
       }
-      const cells = withoutComments(raw);
-      if (isPronyRange(cells)) return pronyMaterial(name, cells);
-      const record = recordFromBlock(name, cells);
+      const cells = blankCommentRows(raw);
+      if (isPronyTable(cells)) return pronyMaterial(name, cells);
       try {
-        return compileMaterial(paramsFromRecord(record));
+        const params = engine(name, () => paramsFromBlockRows(cells, { argument: name, checkCell: carriedCell(name), hint: PARAMS_HINT }));
+        return compileMaterial(params);
       } catch (e) {
         if (e instanceof ParameterError) throw problem(name, `parameter ${e.field} ${e.problem}`);
         throw e;
@@ -441,6 +371,15 @@ export function material(name: string): ArgSpec<Material> {
     return compileMaterial(familyOf(name, v).params);
   };
   return { name, kind: 'material', unit: 'symbol', shape: 'matrix', optional: false, parse };
+}
+
+const PARAMS_HINT = 'DERATE.PARAMS("PC") shows a complete block';
+
+/** For the engine's block reader: a worksheet error arriving in a cell keeps its code and names where it came in. */
+function carriedCell(name: string): (cell: unknown, where: string) => void {
+  return (cell, where) => {
+    if (cell instanceof SheetError) throw carried(name, cell, where);
+  };
 }
 
 function pronyMaterial(name: string, rows: unknown[][]): Material {

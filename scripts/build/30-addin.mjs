@@ -1,5 +1,6 @@
 // The task pane: addin/boot.ts (the head script that loads Office.js inside Excel only) and addin/taskpane.ts bundled for the browser (ES modules; chart.js split into its own
-// chunk, fetched only by the in-page preview sheet), plus the page and its style sheet copied to dist/.
+// chunk, fetched only by the in-page preview sheet, and the calibration job with the engine's least-squares code into another, fetched on the first
+// calibration: both are dynamic import() calls, so splitting is all this step needs), plus the page and its style sheet copied to dist/.
 import { copyFileSync, mkdirSync, rmSync } from 'node:fs';
 import { build } from 'esbuild';
 

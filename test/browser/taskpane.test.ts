@@ -19,7 +19,8 @@ import {
   type CalibrationResult,
   type Material,
 } from '../../src/index.js';
-import { calibrationLayout, readCalibration, runCalibration, type CalibrationFields } from '../../addin/calibrate-job.js';
+import { readCalibration, type CalibrationFields } from '../../addin/calibrate-form.js';
+import { calibrationLayout, runCalibration } from '../../addin/calibrate-job.js';
 import { blockRows, paramsBlockRows } from '../../addin/families-job.js';
 import { expectClose } from '../expect.js';
 
