@@ -51,6 +51,10 @@ export interface Material {
   readonly tauTg: number;
   readonly beta: number;
   readonly tauFlow: number;
+  /** ln(tauTg / 1 s). */
+  readonly lnTauTg: number;
+  /** ln(tauFlow / tauTg). */
+  readonly lnFlowRatio: number;
   readonly flowBeta: number;
   readonly plateau: number;
   readonly creepN: number;
@@ -103,6 +107,8 @@ function build(p: MaterialParams, EgMPa: number): Material {
     tauTg: p.tauTg_s,
     beta: p.beta,
     tauFlow: p.tauTg_s * 10 ** p.flowDecades,
+    lnTauTg: Math.log(p.tauTg_s),
+    lnFlowRatio: p.flowDecades * Math.LN10,
     flowBeta: p.flowBeta,
     plateau: p.kind === 'crosslinked' ? 0 : p.plateau_MPa,
     creepN: p.creepN,
@@ -171,17 +177,26 @@ export function checkTemperatureInDomain(m: Material, TK: number, argument: stri
 
 /** Relaxation modulus (MPa) at time t (s) and temperature T (K). */
 export function modulusMPa(m: Material, tS: number, TK: number): number {
-  const xi = tS / 10 ** shiftLog10(m.shift, TK);
-  if (m.prony) return pronyModulusMPa(m.prony, xi);
-  const theta = m.creepN === 0 ? 0 : tS / 10 ** (m.creepLog10PerInvK * (1 / TK - 1 / T23_K));
-  return modulusParts(m, xi, theta, TK, SCRATCH);
+  const log10aT = shiftLog10(m.shift, TK);
+  if (m.prony) return pronyModulusMPa(m.prony, tS / 10 ** log10aT);
+  return modulusParts(m, lnReduced(m, tS, log10aT), creepClock(m, tS, TK), TK, SCRATCH);
 }
 
 /** Full evaluation (modulus in MPa, region, contributions) at time t (s) and temperature T (K). */
 export function evaluateClocks(m: Material, tS: number, TK: number): Evaluation {
-  const xi = tS / 10 ** shiftLog10(m.shift, TK);
-  const theta = tS / 10 ** (m.creepLog10PerInvK * (1 / TK - 1 / T23_K));
-  return evaluateReduced(m, xi, theta, TK);
+  const log10aT = shiftLog10(m.shift, TK);
+  if (m.prony) return evaluateProny(m.prony, tS / 10 ** log10aT);
+  return evaluateLn(m, lnReduced(m, tS, log10aT), creepClock(m, tS, TK), TK);
+}
+
+/** ln(xi / tauTg) for time t (s) and log10 a_T; the logs are taken apart so that extreme shifts stay finite or infinite, never NaN. */
+function lnReduced(m: Material, tS: number, log10aT: number): number {
+  return Math.log(tS) - m.lnTauTg - Math.LN10 * log10aT;
+}
+
+/** The slow-creep clock theta = t / tau_c(T) (dimensionless). */
+function creepClock(m: Material, tS: number, TK: number): number {
+  return m.creepN === 0 ? 0 : tS / 10 ** (m.creepLog10PerInvK * (1 / TK - 1 / T23_K));
 }
 
 /** Slow-creep clock rate: 1 / tau_c(T) in 1/s (tau_c = 1 s at 23 degC). */
@@ -202,11 +217,13 @@ interface Parts {
 
 const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0 };
 
-/** Modulus (MPa) of a four-region material from its clocks (xi in s at Tg, theta), writing the contributions into p. */
-function modulusParts(m: Material, xi: number, theta: number, TK: number, p: Parts): number {
-  const x = xi / m.tauTg;
-  const G = Math.exp(-(x ** m.beta));
-  const g = m.creepN === 0 ? 1 : (1 + theta) ** -m.creepN;
+/**
+ * Modulus (MPa) of a four-region material from its clocks, writing the contributions into p. lnX = ln(xi / tauTg)
+ * with xi the reduced time at Tg (log space: exp is cheaper than pow on the hot path); theta the slow-creep clock.
+ */
+function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Parts): number {
+  const G = Math.exp(-Math.exp(m.beta * lnX));
+  const g = m.creepN === 0 ? 1 : Math.exp(-m.creepN * Math.log1p(theta));
   p.G = G;
   p.g = g;
   if (m.kind === 'crosslinked') {
@@ -218,7 +235,7 @@ function modulusParts(m: Material, xi: number, theta: number, TK: number, p: Par
     p.lambda = 0;
     return p.glassy + Er;
   }
-  const F = Math.exp(-(((x * m.tauTg) / m.tauFlow) ** m.flowBeta));
+  const F = Math.exp(-Math.exp(m.flowBeta * (lnX - m.lnFlowRatio)));
   const glassy = g * (m.EgMPa - m.plateau) * G;
   const rubbery = g * m.plateau * F;
   const Ea = glassy + rubbery;
@@ -266,8 +283,13 @@ function regionOf(m: Material, E: number, p: Parts): Region {
  */
 export function evaluateReduced(m: Material, xi: number, theta: number, TK: number): Evaluation {
   if (m.prony) return evaluateProny(m.prony, xi);
+  return evaluateLn(m, Math.log(xi) - m.lnTauTg, theta, TK);
+}
+
+/** Four-region evaluation from ln(xi / tauTg), the slow-creep clock and T (K). */
+function evaluateLn(m: Material, lnX: number, theta: number, TK: number): Evaluation {
   const p: Parts = { ...SCRATCH };
-  const E = modulusParts(m, xi, theta, TK, p);
+  const E = modulusParts(m, lnX, theta, TK, p);
   return {
     modulusMPa: E,
     region: regionOf(m, E, p),

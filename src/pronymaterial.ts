@@ -114,14 +114,17 @@ export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
     Ea_kJmol: shift.EakJ,
     creepN: 0,
   };
+  const tauTg = halfwayTime(series);
   const material: Material = {
     params,
     kind: 'amorphous',
     shift,
     EgMPa: Eg,
-    tauTg: halfwayTime(series),
+    tauTg,
     beta: 1,
     tauFlow: Infinity,
+    lnTauTg: Math.log(tauTg),
+    lnFlowRatio: Infinity,
     flowBeta: 1,
     plateau: series.EinfMPa,
     creepN: 0,
