@@ -28,9 +28,10 @@ import {
 import { SheetError } from '../functions/core/cells.js';
 import { definition, type MatrixDef, type ScalarDef } from '../functions/core/define.js';
 import { derateWorkbook } from '../functions/host/hyperformula.js';
-import { officeCall, registerLazyWithOffice, type CustomFunctionsRuntime } from '../functions/host/office.js';
+import { officeCall, registerLazyWithOffice } from '../functions/host/office.js';
 import { expectClose } from './expect.js';
 import { loadFunctions } from './support/functions.js';
+import { fakeRuntime } from './support/office-runtime.js';
 
 const H = 3600;
 const DEMO_CURVES = 'invented demo data demo/latch-pc-relaxation-invented.csv';
@@ -362,24 +363,8 @@ describe('DERATE.DMAFIT', () => {
 });
 
 describe('Office: the functions loaded on first call', () => {
-  class FakeError {
-    constructor(
-      readonly code: string,
-      readonly message?: string,
-    ) {}
-  }
-  function runtime(): CustomFunctionsRuntime & { table: Map<string, (...a: unknown[]) => unknown> } {
-    const table = new Map<string, (...a: unknown[]) => unknown>();
-    return {
-      table,
-      associate: (id, fn) => table.set(id, fn),
-      Error: FakeError,
-      ErrorCode: { invalidValue: '#VALUE!', notAvailable: '#N/A', invalidNumber: '#NUM!' },
-    };
-  }
-
   it('answer with a Promise, load once, and report a failed load (then try again)', async () => {
-    const rt = runtime();
+    const rt = fakeRuntime();
     let loads = 0;
     let fail = true;
     registerLazyWithOffice(

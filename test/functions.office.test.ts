@@ -6,25 +6,9 @@
 import { readFileSync } from 'node:fs';
 import { beforeAll, describe, expect, it } from 'vitest';
 import type { FunctionDef } from '../functions/core/define.js';
-import { registerWithOffice, type CustomFunctionsRuntime } from '../functions/host/office.js';
+import { registerWithOffice } from '../functions/host/office.js';
 import { loadFunctions } from './support/functions.js';
-
-class FakeError {
-  constructor(
-    readonly code: string,
-    readonly message?: string,
-  ) {}
-}
-
-function fakeRuntime(): CustomFunctionsRuntime & { table: Map<string, (...a: unknown[]) => unknown> } {
-  const table = new Map<string, (...a: unknown[]) => unknown>();
-  return {
-    table,
-    associate: (id, fn) => table.set(id, fn),
-    Error: FakeError,
-    ErrorCode: { invalidValue: '#VALUE!', notAvailable: '#N/A', invalidNumber: '#NUM!' },
-  };
-}
+import { FakeError, fakeRuntime } from './support/office-runtime.js';
 
 let defs: readonly FunctionDef[] = [];
 beforeAll(async () => {

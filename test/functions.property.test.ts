@@ -24,6 +24,7 @@ import type { ArgKind, ArgSpec } from '../functions/core/args.js';
 import { foreignError, SheetError } from '../functions/core/cells.js';
 import { definition, type ArgShape, type FunctionDef } from '../functions/core/define.js';
 import { officeFunction, type CustomFunctionsRuntime } from '../functions/host/office.js';
+import { FakeError, fakeRuntime } from './support/office-runtime.js';
 import { loadsOnFirstCall } from '../scripts/functions-files.mjs';
 import { compileMaterial, getFamily } from '../src/index.js';
 import {
@@ -310,17 +311,7 @@ describe('every worksheet function, arbitrary input', () => {
   });
 
   it('through the Office adapter: numbers and spills come back, errors are CustomFunctions.Error with a message', () => {
-    class FakeError {
-      constructor(
-        readonly code: string,
-        readonly message?: string,
-      ) {}
-    }
-    const rt: CustomFunctionsRuntime = {
-      associate: () => undefined,
-      Error: FakeError,
-      ErrorCode: { invalidValue: '#VALUE!', notAvailable: '#N/A', invalidNumber: '#NUM!' },
-    };
+    const rt: CustomFunctionsRuntime = fakeRuntime();
     const makeError = (code: string): FakeError => new FakeError(code, code === '#DIV/0!' ? undefined : 'upstream');
     for (const def of defs) {
       const fn = officeFunction(rt, def);

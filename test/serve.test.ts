@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import devCerts from 'office-addin-dev-certs';
 import { chromium, type Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { CHROMIUM_ARGS, CHROMIUM_PATH } from '../scripts/ensure-chromium.mjs';
 import { CONTENT_SECURITY_POLICY, OFFICE_JS_HOSTS, parseArgs } from '../scripts/serve.mjs';
 
 const work = mkdtempSync(join(tmpdir(), 'resin-serve-'));
@@ -169,18 +170,7 @@ describe('scripts/serve.mjs over http (test mode)', () => {
   it('makes Chromium refuse inline script, eval and outside images on its pages', async () => {
     let browser: Browser | undefined;
     try {
-      browser = await chromium.launch({
-        executablePath: '/usr/bin/chromium',
-        args: [
-          '--no-sandbox',
-          '--disable-gpu',
-          '--disable-quic',
-          '--no-first-run',
-          '--disable-background-networking',
-          '--disable-component-update',
-          '--disable-sync',
-        ],
-      });
+      browser = await chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS });
       const page = await browser.newPage();
       const outside: string[] = [];
       await page.route('**/*', (route) => {
@@ -241,10 +231,7 @@ describe('scripts/serve.mjs over https', () => {
 describe.skipIf(!existsSync('dist/taskpane.html'))('the built task pane (dist/taskpane.html, from the pane build)', () => {
   it('loads under the policy without a single violation (Office.js blocked, as outside Excel)', async () => {
     const dist = await serve(['--http', '--root', 'dist']);
-    const browser = await chromium.launch({
-      executablePath: '/usr/bin/chromium',
-      args: ['--no-sandbox', '--disable-gpu', '--no-first-run'],
-    });
+    const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, args: CHROMIUM_ARGS });
     try {
       const page = await browser.newPage();
       await page.route('**/*', (route) => (new URL(route.request().url()).hostname === '127.0.0.1' ? route.continue() : route.abort()));
