@@ -55,6 +55,29 @@ describe('Office host', () => {
     expect(block.flat().some((c) => c === null)).toBe(false);
   });
 
+  it('takes the trailing Invocation object the way Excel passes it, and still refuses a real extra argument', () => {
+    // Microsoft Learn, "Custom functions parameter options" (Invocation parameter): one value per declared
+    // parameter, null for an omitted optional one, then always an Invocation object.
+    const rt = fakeRuntime();
+    registerWithOffice(rt);
+    const modulus = rt.table.get('MODULUS');
+    const ratio = rt.table.get('RATIO');
+    if (!modulus || !ratio) throw new Error('not associated');
+    const invocation = { functionName: 'DERATE.MODULUS', address: 'Sheet1!B2', parameterAddresses: undefined };
+    const plain = modulus([['PC']], 80, '1000 h');
+    expect(modulus([['PC']], 80, '1000 h', invocation)).toBe(plain);
+    expect(typeof ratio([['PC']], 80, '1000 h', null, null, { functionName: 'DERATE.RATIO' })).toBe('number');
+    expect(ratio([['PC']], 80, '1000 h', null, null, { functionName: 'DERATE.RATIO' })).toBe(ratio([['PC']], 80, '1000 h'));
+    let thrown: unknown;
+    try {
+      modulus([['PC']], 80, '1000 h', 5, invocation);
+    } catch (e) {
+      thrown = e;
+    }
+    expect(thrown).toBeInstanceOf(FakeError);
+    expect((thrown as FakeError).message).toContain('takes at most 3 arguments');
+  });
+
   it('reads Excel error objects in ranges and keeps #N/A', () => {
     const rt = fakeRuntime();
     registerWithOffice(rt);

@@ -36,10 +36,37 @@ export function fromOffice(rt: CustomFunctionsRuntime | undefined, x: unknown): 
   return x;
 }
 
+/** The part of the runtime's Invocation object read here (CustomFunctions.Invocation). */
+export interface OfficeInvocation {
+  readonly functionName?: string;
+  /** The calling cell, e.g. `Sheet1!B7`; set only for functions whose metadata asks for it. */
+  readonly address?: string;
+}
+
+/** True for the Invocation object the runtime appends; never for a cell value (a number, text, boolean, range or error). */
+export function isInvocation(x: unknown): x is OfficeInvocation {
+  if (x === null || typeof x !== 'object' || Array.isArray(x)) return false;
+  if (typeof (x as { code?: unknown }).code === 'string') return false;
+  return 'functionName' in x || 'address' in x || 'parameterAddresses' in x || 'setResult' in x || 'onCanceled' in x;
+}
+
+/**
+ * The worksheet arguments of one call, without the Invocation object. Excel's runtime passes one value per
+ * declared parameter (null for an omitted optional one) and then always an Invocation ("Every custom
+ * function is automatically passed an invocation argument as the last input parameter", Microsoft Learn,
+ * "Custom functions parameter options", Invocation parameter). Anything after the declared parameters that
+ * is not that object stays in the list, so the definition refuses it as an extra argument.
+ */
+export function withoutInvocation(args: readonly unknown[], declared: number): unknown[] {
+  const last = args.length - 1;
+  if (last >= declared && isInvocation(args[last])) return args.slice(0, last);
+  return [...args];
+}
+
 /** The Excel-facing function for a definition. */
 export function officeFunction(rt: CustomFunctionsRuntime, def: FunctionDef): (...args: unknown[]) => unknown {
   return (...args: unknown[]) => {
-    const out = def.invoke(...args.map((a) => fromOffice(rt, a)));
+    const out = def.invoke(...withoutInvocation(args, def.args.length).map((a) => fromOffice(rt, a)));
     if (out instanceof SheetError) throw toOfficeError(rt, out);
     if (Array.isArray(out)) return out.map((row) => row.map((c) => (c instanceof SheetError ? toOfficeError(rt, c) : c === null ? '' : c)));
     return out;
