@@ -1,5 +1,22 @@
 import tseslint from 'typescript-eslint';
 
+/** Engine rooms, lowest first; each may import only the rooms before it. */
+const ROOMS = ['base', 'numeric', 'material', 'answers', 'fit'];
+const PURE = [
+  { group: ['**/functions/**', '**/addin/**', '**/cli/**'], message: 'src/ must not import the outer layers' },
+  { group: ['node:*', 'fs', 'path', 'os', 'child_process', 'office-js', '@microsoft/*'], message: 'src/ is pure TypeScript' },
+];
+/** Import patterns forbidden to the room at index i: every room above it, and the barrel src/index.ts. */
+function above(i) {
+  return [
+    ...ROOMS.slice(i + 1).map((r) => ({
+      group: [`**/${r}/**`, `../${r}/*`],
+      message: `this room sits below src/${r}/; imports flow one way`,
+    })),
+    { group: ['../index.js', '../../index.js'], message: 'rooms import each other directly, never through the barrel src/index.ts' },
+  ];
+}
+
 export default tseslint.config(
   { ignores: ['dist/**', 'node_modules/**', 'demo/**', 'coverage/**', 'test-output/**'] },
   ...tseslint.configs.recommended,
@@ -11,21 +28,27 @@ export default tseslint.config(
       'no-new-func': 'error',
     },
   },
-  {
-    // The engine is pure: no Office, DOM-only or Node-only modules, and nothing from the outer layers.
-    files: ['src/**/*.ts'],
-    ignores: ['src/cli/**'],
+  // The engine is pure: no Office, DOM-only or Node-only modules, and nothing from the outer layers. Inside
+  // it, rooms import only rooms below them: base <- numeric <- material <- answers <- fit (docs/architecture.md).
+  ...ROOMS.map((room, i) => ({
+    files: [`src/${room}/**/*.ts`],
     rules: {
-      'no-restricted-imports': [
-        'error',
-        {
-          patterns: [
-            { group: ['**/functions/**', '**/addin/**', '**/cli/**'], message: 'src/ must not import the outer layers' },
-            { group: ['node:*', 'fs', 'path', 'os', 'child_process', 'office-js', '@microsoft/*'], message: 'src/ is pure TypeScript' },
-          ],
-        },
-      ],
+      'no-restricted-imports': ['error', { patterns: [...PURE, ...above(i)] }],
       'no-restricted-globals': ['error', 'Office', 'Excel', 'document', 'window', 'process'],
+    },
+  })),
+  {
+    files: ['src/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: PURE }],
+      'no-restricted-globals': ['error', 'Office', 'Excel', 'document', 'window', 'process'],
+    },
+  },
+  {
+    // The command line reads the engine only; the worksheet functions and the pane are not its business.
+    files: ['cli/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ group: ['**/functions/**', '**/addin/**'], message: 'cli/ imports only src/' }] }],
     },
   },
 );

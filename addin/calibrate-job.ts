@@ -5,8 +5,8 @@
  * The pane loads this module (and with it the engine's least-squares code) on the first calibration;
  * reading the form is calibrate-form.ts.
  */
-import { calibrateDatasheet, calibrationCheckRows, type CalibrationResult } from '../src/calibrate.js';
-import { InputError } from '../src/errors.js';
+import { calibrateDatasheet, calibrationCheckRows, type CalibrationResult } from '../src/fit/calibrate.js';
+import { InputError } from '../src/base/errors.js';
 import type { Box, Cell } from './a1.js';
 import { CALIBRATION_FIELD_NAMES as N, QUALITY_TEXT, type CalibrationRequest } from './calibrate-form.js';
 import { paramsBlockRows } from './families-job.js';

@@ -4,9 +4,9 @@
  * Office adapter is used; anywhere else (the preview, the browser tests) the in-memory sheet is drawn
  * beside the pane.
  */
-import type { CalibrationResult } from '../src/calibrate.js';
-import { InputError, ParameterError, UnknownFamilyError } from '../src/errors.js';
-import { FAMILIES, getFamily } from '../src/families.js';
+import type { CalibrationResult } from '../src/fit/calibrate.js';
+import { InputError, ParameterError, UnknownFamilyError } from '../src/base/errors.js';
+import { FAMILIES, getFamily } from '../src/material/families.js';
 import { parseRef, qualified, type Box, type Cell } from './a1.js';
 import {
   CALIBRATION_FIELD_NAMES,

@@ -1,6 +1,6 @@
 /** Benchmarks of calibration and fitting: medians of repeated runs, in milliseconds. */
 import { calibrateDatasheet, compileMaterial, fitCurves, getFamily, KELVIN_OFFSET, modulusMPa, type Curve } from '../src/index.js';
-import { normal, seededRandom } from '../src/cli/demodata.js';
+import { normal, seededRandom } from '../cli/demodata.js';
 import { medianMs } from './timing.js';
 
 const K = KELVIN_OFFSET;

@@ -5,7 +5,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { main } from '../src/cli/main.js';
+import { main } from '../cli/main.js';
 import { propertyParameters } from './arbitraries.js';
 import { cliCase, COMMANDS, contractBreach, writeParamFiles, type Answer, type CliCase } from './cli-cases.js';
 

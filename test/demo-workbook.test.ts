@@ -7,10 +7,11 @@ import { existsSync, mkdirSync, rmSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { DetailedCellError } from 'hyperformula';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { computeDemo, printDemo, type DemoReview } from '../src/cli/demo.js';
-import { sig } from '../src/cli/format.js';
-import { DEMO_SCENARIO } from '../src/cli/scenario.js';
-import { REVIEW_SHEET, writeDemoWorkbook } from '../src/cli/workbook.js';
+import { printDemo } from '../cli/demo.js';
+import { computeDemo, type DemoReview } from '../cli/review.js';
+import { sig } from '../cli/format.js';
+import { DEMO_SCENARIO } from '../cli/scenario.js';
+import { REVIEW_SHEET, writeDemoWorkbook } from '../cli/workbook.js';
 import { derateWorkbook } from '../functions/host/hyperformula.js';
 import { expectClose } from './expect.js';
 import { loadFunctions } from './support/functions.js';
@@ -75,7 +76,7 @@ describe('demo workbook', () => {
         expect((got as DetailedCellError).value, label).toBe((c.result as { error: string }).error);
       } else if (typeof c.result === 'number') {
         expect(typeof got, `${label}: ${String(got)}`).toBe('number');
-        expectClose(got as number, c.result, { rel: 1e-9, source: `${label}: value cached by the engine (src/cli/demo.ts computeDemo)` });
+        expectClose(got as number, c.result, { rel: 1e-9, source: `${label}: value cached by the engine (cli/review.ts computeDemo)` });
       } else {
         expect(got, label).toBe(c.result);
       }

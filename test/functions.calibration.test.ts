@@ -114,7 +114,7 @@ describe('a Prony table as the material of every function', () => {
     const m = resolveMaterial(SLS);
     expectClose(num(scalar('MODULUS').invoke(padded, 100, 1)), modulusMPa(m, H, cToKelvin(100)), {
       rel: 1e-12,
-      source: 'engine: src/model.ts modulusMPa of the same Prony material',
+      source: 'engine: src/material/model.ts modulusMPa of the same Prony material',
     });
     for (const id of ['STRESS', 'RATIO', 'HDT', 'CREEPMOD', 'BAND', 'CURVE', 'MAXTEMP', 'MAXTIME', 'APPARENTTG']) {
       const d = definition(id);
@@ -162,7 +162,7 @@ describe('DERATE.CREEPMOD', () => {
   it('equals the engine for a family and lies above the relaxation modulus', () => {
     const pc = compileMaterial(getFamily('PC').params);
     const E = num(scalar('CREEPMOD').invoke([['PC']], 80, '1000 h'));
-    expectClose(E, creepModulusMPa(pc, 1000 * H, cToKelvin(80)), { rel: 1e-12, source: 'engine: src/creep.ts creepModulusMPa' });
+    expectClose(E, creepModulusMPa(pc, 1000 * H, cToKelvin(80)), { rel: 1e-12, source: 'engine: src/answers/creep.ts creepModulusMPa' });
     // E(t) D(t) <= 1 for any linear viscoelastic solid (Schapery and Park 1999; from memory).
     expect(E).toBeGreaterThanOrEqual(num(scalar('MODULUS').invoke([['PC']], 80, '1000 h')));
   });
@@ -191,7 +191,7 @@ describe('DERATE.FITCURVES and DERATE.SHIFTS', () => {
       source: 'engine: fitCurves material (zero-weight terms left out of the table change nothing)',
     });
     expectClose(cell(hf, 'Use!B1') as number, modulusMPa(m, 1000 * H, cToKelvin(120)), { rel: 1e-9, source: 'engine: fitCurves material' });
-    expectClose(cell(hf, 'Use!C1') as number, creepModulusMPa(m, H, cToKelvin(152)), { rel: 1e-9, source: 'engine: src/creep.ts' });
+    expectClose(cell(hf, 'Use!C1') as number, creepModulusMPa(m, H, cToKelvin(152)), { rel: 1e-9, source: 'engine: src/answers/creep.ts' });
     hf.destroy();
   });
 
@@ -249,7 +249,7 @@ describe('DERATE.FITCURVES and DERATE.SHIFTS', () => {
     shifts.forEach((s, i) =>
       expectClose(cell(hf, `S!B${i + 2}`) as number, s.log10aT, {
         abs: 1e-12,
-        source: `engine: src/mastercurve.ts shiftCurves, ${DEMO_CURVES}`,
+        source: `engine: src/fit/mastercurve.ts shiftCurves, ${DEMO_CURVES}`,
       }),
     );
     expect(cell(hf, `S!A${shifts.length + 5}`)).toBe('C1');
@@ -351,7 +351,7 @@ describe('DERATE.DMAFIT', () => {
     const r = fitDma('PC', readDmaTable(data), { frequencyHz: 1 });
     expectClose(cell(hf, 'U!A1') as number, modulusMPa(compileMaterial(r.params), 1000 * H, cToKelvin(60)), {
       rel: 1e-12,
-      source: `engine: src/dma.ts fitDma on the ${DEMO_DMA}`,
+      source: `engine: src/fit/dma.ts fitDma on the ${DEMO_DMA}`,
     });
     hf.destroy();
     const block = table(matrix('DMAFIT').invoke([['PC']], data, '1 Hz'));

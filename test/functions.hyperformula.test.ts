@@ -14,7 +14,7 @@ import { checkRow, type Outcome } from './support/check.js';
 import { loadFunctions } from './support/functions.js';
 
 const H = 3600;
-const ENGINE = 'engine: src/model.ts modulusMPa';
+const ENGINE = 'engine: src/material/model.ts modulusMPa';
 
 function outcome(v: unknown): Outcome {
   if (v instanceof DetailedCellError) return { code: v.value, message: v.message };
@@ -102,7 +102,7 @@ describe('a DERATE sheet in HyperFormula', () => {
       table.forEach((r, i) =>
         expectClose(at(hf, `${col}${i + 2}`) as number, r.cells[j]?.modulusMPa ?? NaN, {
           rel: 1e-12,
-          source: 'engine: src/table.ts deratingTable',
+          source: 'engine: src/answers/table.ts deratingTable',
         }),
       ),
     );

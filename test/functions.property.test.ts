@@ -13,7 +13,7 @@
  * Properties: never throws; a finite number, a well-formed spill (rectangular, every cell a finite number,
  * text, empty or an error with a message, of the size spillSize promised) or a worksheet error with a
  * message; monotone in temperature and time for MODULUS / RATIO / STRESS (the entropic rise of a network
- * taken out, as src/model.ts defines it); MAXTEMP / MAXTIME round-trip through MODULUS within 1e-6
+ * taken out, as src/material/model.ts defines it); MAXTEMP / MAXTIME round-trip through MODULUS within 1e-6
  * relative or are #N/A with a message; BAND low <= central <= high.
  *
  * Seeded and bounded (RD_PROPERTY_RUNS raises every count, RD_PROPERTY_SEED replays a failure).
@@ -366,7 +366,7 @@ const hoursArb = logUniform(1e-3, 5e5);
 const ROUND = 1e-9;
 const ROUND_TRIP = 1e-6;
 
-/** The entropic rise of a network's rubbery modulus, MPa at T (src/model.ts); zero for other kinds. */
+/** The entropic rise of a network's rubbery modulus, MPa at T (src/material/model.ts); zero for other kinds. */
 function entropic(id: string, TC: number): number {
   return compileMaterial(getFamily(id).params).networkMPaPerK * (TC + 273.15);
 }

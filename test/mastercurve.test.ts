@@ -18,7 +18,7 @@ import {
   type CurveKind,
   type MaterialParams,
 } from '../src/index.js';
-import { inventedDmaCsv, inventedRelaxationCsv, normal, seededRandom } from '../src/cli/demodata.js';
+import { inventedDmaCsv, inventedRelaxationCsv, normal, seededRandom } from '../cli/demodata.js';
 import { expectClose } from './expect.js';
 
 const K = KELVIN_OFFSET;

@@ -11,7 +11,7 @@ import {
 } from '../src/index.js';
 import { expectClose } from './expect.js';
 import { graded } from './quadrature.js';
-import { seededRandom } from '../src/cli/demodata.js';
+import { seededRandom } from '../cli/demodata.js';
 
 /** Unconstrained least squares by the normal equations and Gaussian elimination (small, well-posed test problems). */
 function leastSquares(A: number[][], b: number[]): number[] {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { brentRoot } from '../src/roots.js';
+import { brentRoot } from '../src/numeric/roots.js';
 import { expectClose } from './expect.js';
 
 describe('Brent root finder', () => {

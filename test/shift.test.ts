@@ -8,7 +8,7 @@ import {
   wlfLog10,
   WLF_UNIVERSAL_C1,
   WLF_UNIVERSAL_C2_K,
-} from '../src/shift.js';
+} from '../src/material/shift.js';
 import { expectClose } from './expect.js';
 
 const WLF55 = 'Williams, Landel, Ferry, J. Am. Chem. Soc. 77 (1955) 3701';

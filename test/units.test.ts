@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { convertStressFromMPa, PA_PER_PSI, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_YEAR } from '../src/units.js';
+import { convertStressFromMPa, PA_PER_PSI, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_YEAR } from '../src/base/units.js';
 import { expectClose } from './expect.js';
 
 const NIST = 'NIST SP 811 (2008), appendix B.8';

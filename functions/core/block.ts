@@ -2,9 +2,9 @@
  * The parameter block: the labelled, editable layout that DERATE.PARAMS spills and that every
  * `material` argument accepts back as a range. One definition for both directions.
  */
-import { ALL_KEYS, KINDS, NUMERIC_FIELDS, type FieldSpec, type Kind, type MaterialParams } from '../../src/params.js';
-import { paramsToRecord } from '../../src/resolve.js';
-import { SHIFT_LAWS } from '../../src/shift.js';
+import { ALL_KEYS, KINDS, NUMERIC_FIELDS, type FieldSpec, type Kind, type MaterialParams } from '../../src/material/params.js';
+import { paramsToRecord } from '../../src/material/resolve.js';
+import { SHIFT_LAWS } from '../../src/material/shift.js';
 import type { OutCell } from './cells.js';
 
 /** Header row of the block; a range passed back may include it or leave it out. */

@@ -1,6 +1,6 @@
 /**
  * The one error mapper and the one result guard of the worksheet layer. Engine failures are typed
- * (src/errors.ts); here they become worksheet errors: #VALUE! (bad input, with a message naming the
+ * (src/base/errors.ts); here they become worksheet errors: #VALUE! (bad input, with a message naming the
  * argument), #N/A (not found / not reached, with a message), #NUM! (no convergence, overflow).
  */
 import { InputError, ParameterError, SolverError, UnknownFamilyError } from '../../src/index.js';

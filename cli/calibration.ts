@@ -1,0 +1,321 @@
+/**
+ * CLI commands for calibration and the user's own test data: calibrate (datasheet points), fit
+ * (relaxation or creep curves -> master curve, shift law, Prony table), dmafit (DMA sweep -> parameters)
+ * and creepmod (apparent creep modulus). Registered into the command table of main.ts.
+ */
+import { writeFileSync } from 'node:fs';
+import {
+  calibrateDatasheet,
+  creepModulusMPa,
+  fitCurves,
+  fitDma,
+  HDT_METHODS,
+  InputError,
+  kelvinToC,
+  localSlope,
+  modulusMPa,
+  paramsToRecord,
+  parseCsv,
+  parseStressMPa,
+  parseTemperatureK,
+  parseTimeS,
+  pronyToRecord,
+  pronyToTable,
+  readCurveTable,
+  readDmaTable,
+  resolveMaterial,
+  type DatasheetInputs,
+  type HdtDatum,
+  type ModulusDatum,
+  type NumericField,
+} from '../src/index.js';
+import { csvTable, markdownTable, sig } from './format.js';
+import { emit, json, material, materialInputFrom, opt, readText, str, type Command, type Values } from './command.js';
+import { inventedDmaCsv, inventedRelaxationCsv } from './demodata.js';
+
+const CAUTION =
+  'Screening estimates only: a calibrated or fitted record reproduces the numbers it was given, not the part. Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code and defer to licensed engineering review for parts whose failure can hurt someone.';
+
+function writeOut(v: Values, data: object): string {
+  const file = opt(v, 'out');
+  if (!file) return '';
+  writeFileSync(file, JSON.stringify(data, null, 2) + '\n');
+  return `Record written to ${file} (use it with --params ${file}).\n`;
+}
+
+function list(text: string | undefined): string[] {
+  return (text ?? '')
+    .split(',')
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
+}
+
+/** 'TIME@TEMPERATURE:MODULUS' items, e.g. '1000 h@23 degC:1900'. */
+function modulusPoints(text: string | undefined, kind: ModulusDatum['kind'], argument: string): ModulusDatum[] {
+  return list(text).map((item, i) => {
+    const m = /^(.+)@(.+):(.+)$/.exec(item);
+    if (!m) throw new InputError(argument, `item ${i + 1} '${item}' must be TIME@TEMPERATURE:MODULUS, such as '1000 h@23 degC:1900'`);
+    return {
+      kind,
+      timeS: parseTimeS(m[1]!.trim(), argument),
+      temperatureK: parseTemperatureK(m[2]!.trim(), argument),
+      modulusMPa: parseStressMPa(m[3]!.trim(), argument),
+    };
+  });
+}
+
+/** 'STRESS:TEMPERATURE' items, e.g. '8:95'. */
+function hdtPoints(text: string | undefined): HdtDatum[] {
+  return list(text).map((item, i) => {
+    const [s, t, extra] = item.split(':');
+    if (s === undefined || t === undefined || extra !== undefined) {
+      throw new InputError('--hdt', `item ${i + 1} '${item}' must be STRESS:TEMPERATURE, such as '8:95' (8 MPa, 95 degC)`);
+    }
+    return { stressMPa: parseStressMPa(s.trim(), '--hdt'), temperatureK: parseTemperatureK(t.trim(), '--hdt') };
+  });
+}
+
+const NUM = (x: number | null): string => (x === null ? '' : sig(x, 4));
+
+export const CALIBRATION_COMMANDS: Record<string, Command> = {
+  calibrate: {
+    summary: 'calibrate a family to datasheet numbers (modulus, HDT/A, HDT/B, Tg, Tm, creep moduli)',
+    usage:
+      "resin-derate calibrate --family ID [--modulus23 2400] [--hdt-a 132] [--hdt-b 142] [--hdt 'STRESS:TEMP,...'] [--tg 147] [--tm 223] [--creep '1000 h@23:1900'] [--relax 'TIME@TEMP:E'] [--free F1,F2] [--id NAME] [--out FILE.json] [--json]",
+    options: {
+      ...material,
+      modulus23: { type: 'string' },
+      'hdt-a': { type: 'string' },
+      'hdt-b': { type: 'string' },
+      hdt: { type: 'string' },
+      tg: { type: 'string' },
+      tm: { type: 'string' },
+      creep: { type: 'string' },
+      relax: { type: 'string' },
+      free: { type: 'string' },
+      id: { type: 'string' },
+      out: { type: 'string' },
+      ...json,
+    },
+    run(v, out) {
+      const start = materialInputFrom(v);
+      const hdt: HdtDatum[] = [];
+      const a = opt(v, 'hdt-a');
+      const b = opt(v, 'hdt-b');
+      if (a) hdt.push({ stressMPa: HDT_METHODS.A, temperatureK: parseTemperatureK(a, '--hdt-a') });
+      if (b) hdt.push({ stressMPa: HDT_METHODS.B, temperatureK: parseTemperatureK(b, '--hdt-b') });
+      hdt.push(...hdtPoints(opt(v, 'hdt')));
+      const m23 = opt(v, 'modulus23');
+      const tg = opt(v, 'tg');
+      const tm = opt(v, 'tm');
+      const inputs: DatasheetInputs = {
+        ...(m23 ? { modulus23MPa: parseStressMPa(m23, '--modulus23') } : {}),
+        ...(tg ? { TgK: parseTemperatureK(tg, '--tg') } : {}),
+        ...(tm ? { TmK: parseTemperatureK(tm, '--tm') } : {}),
+        hdt,
+        moduli: [...modulusPoints(opt(v, 'creep'), 'creep', '--creep'), ...modulusPoints(opt(v, 'relax'), 'relaxation', '--relax')],
+      };
+      const free = list(opt(v, 'free')) as NumericField[];
+      const id = opt(v, 'id');
+      const r = calibrateDatasheet(start, inputs, { ...(free.length > 0 ? { free } : {}), ...(id ? { id } : {}) });
+      const data = {
+        params: paramsToRecord(r.params),
+        free: r.free,
+        residuals: r.residuals,
+        iterations: r.iterations,
+        converged: r.converged,
+        reason: r.reason,
+        quality: r.quality,
+        notes: r.notes,
+        caution: CAUTION,
+      };
+      const written = writeOut(v, data);
+      const rows = r.residuals.map((x) => [x.input, NUM(x.given), NUM(x.reproduced), x.unit, x.tolerance, x.within ? 'yes' : 'NO', x.via]);
+      const freeRows = r.free.map((f) => [f.field, sig(f.start, 4), sig(f.value, 4), f.atBound ? 'at bound' : '']);
+      const text =
+        `Calibrated record '${r.params.id}' (quality ${r.quality}; ${r.iterations} iterations, ${r.reason})\n\n` +
+        markdownTable(['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through'], rows) +
+        (freeRows.length > 0 ? '\n' + markdownTable(['fitted parameter', 'start', 'calibrated', ''], freeRows) : '') +
+        r.notes.map((n) => `\nnote: ${n}`).join('') +
+        `\n\n${written}${CAUTION}\n`;
+      emit(out, v, data, text);
+    },
+  },
+  fit: {
+    summary: 'fit relaxation or creep curves: master curve, WLF / Arrhenius shift law and Prony table',
+    usage:
+      'resin-derate fit --data FILE.csv [--tg 147] [--ref 160] [--terms-per-decade N] [--id NAME] [--format md|csv|json] [--json] [--out FILE.json]',
+    options: {
+      data: { type: 'string' },
+      tg: { type: 'string' },
+      ref: { type: 'string' },
+      'terms-per-decade': { type: 'string' },
+      id: { type: 'string' },
+      format: { type: 'string' },
+      out: { type: 'string' },
+      ...json,
+    },
+    run(v, out) {
+      const file = str(v, 'data');
+      const set = readCurveTable(parseCsv(readText(file, '--data')));
+      const tg = opt(v, 'tg');
+      const ref = opt(v, 'ref');
+      const tpd = opt(v, 'terms-per-decade');
+      const perDecade = tpd === undefined ? undefined : Number(tpd);
+      if (perDecade !== undefined && !(Number.isInteger(perDecade) && perDecade >= 1 && perDecade <= 10)) {
+        throw new InputError('--terms-per-decade', `must be a whole number from 1 to 10, got '${tpd}'`);
+      }
+      const id = opt(v, 'id');
+      const fit = fitCurves(set, {
+        ...(tg ? { TgK: parseTemperatureK(tg, '--tg') } : {}),
+        ...(ref ? { referenceK: parseTemperatureK(ref, '--ref') } : {}),
+        ...(perDecade ? { termsPerDecade: perDecade } : {}),
+        ...(id ? { id } : {}),
+      });
+      const law = fit.shiftLaw;
+      const data = {
+        kind: fit.kind,
+        reference_C: kelvinToC(fit.referenceK),
+        shifts: fit.shifts.map((s) => ({
+          temperature_C: kelvinToC(s.temperatureK),
+          log10_aT: s.log10aT,
+          overlap_points: s.overlapPoints,
+          rms_log10: s.rmsLog10,
+          against_C: s.againstK === null ? null : kelvinToC(s.againstK),
+        })),
+        shift_law: {
+          law: law.law,
+          Tg_C: law.TgK === null ? null : kelvinToC(law.TgK),
+          C1: law.C1,
+          C2_K: law.C2K,
+          Ea_kJmol: law.EakJmol,
+          fitted: law.fitted,
+          rms_log10: law.rmsLog10,
+          quality: law.quality,
+        },
+        prony: {
+          terms_per_decade: fit.termsPerDecade,
+          rms_log10: fit.pronyRmsLog10,
+          max_log10: fit.pronyMaxLog10,
+          quality: fit.pronyQuality,
+        },
+        material: pronyToRecord(fit.material),
+        quality: fit.quality,
+        notes: fit.notes,
+        caution: CAUTION,
+      };
+      const written = writeOut(v, data);
+      const format = opt(v, 'format') ?? (v['json'] ? 'json' : 'md');
+      if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
+      if (format === 'json') {
+        out.write(JSON.stringify(data, null, 2) + '\n');
+        return;
+      }
+      const table = pronyToTable(fit.material).map((r) => r.map((c) => (typeof c === 'number' ? String(Number(c.toPrecision(6))) : c)));
+      if (format === 'csv') {
+        out.write(csvTable(['key', 'value'], table));
+        return;
+      }
+      const shiftRows = fit.shifts.map((s) => [
+        sig(kelvinToC(s.temperatureK), 4),
+        s.log10aT.toFixed(3),
+        String(s.overlapPoints),
+        s.rmsLog10.toFixed(3),
+      ]);
+      out.write(
+        `# Master curve at ${sig(kelvinToC(fit.referenceK), 4)} degC from ${set.curves.length} ${set.kind} curves (quality ${fit.quality})\n\n` +
+          markdownTable(['temperature degC', 'log10 aT', 'overlap points', 'rms log10'], shiftRows) +
+          `\nShift law ${law.law}: C1 ${NUM(law.C1)}, C2 ${NUM(law.C2K)} K (reference ${sig(kelvinToC(fit.referenceK), 4)} degC)` +
+          (law.EakJmol !== null ? `, Ea ${NUM(law.EakJmol)} kJ/mol below Tg` : '') +
+          `; rms ${law.rmsLog10.toFixed(3)} decades (${law.quality})\n` +
+          `Prony: ${fit.prony.terms.length} terms (${fit.termsPerDecade} per decade), rms ${fit.pronyRmsLog10.toFixed(4)} decades (${fit.pronyQuality})\n\n` +
+          markdownTable(['key', 'value'], table) +
+          fit.notes.map((n) => `\nnote: ${n}`).join('') +
+          `\n\n${written}${CAUTION}\n`,
+      );
+    },
+  },
+  dmafit: {
+    summary: 'fit the four-region parameters of a family to a DMA storage-modulus temperature sweep',
+    usage: 'resin-derate dmafit --family ID --data SWEEP.csv --frequency 1 [--free F1,F2] [--id NAME] [--out FILE.json] [--json]',
+    options: {
+      ...material,
+      data: { type: 'string' },
+      frequency: { type: 'string' },
+      free: { type: 'string' },
+      id: { type: 'string' },
+      out: { type: 'string' },
+      ...json,
+    },
+    run(v, out) {
+      const start = materialInputFrom(v);
+      const sweep = readDmaTable(parseCsv(readText(str(v, 'data'), '--data')));
+      const fText = str(v, 'frequency');
+      const f = Number(fText.replace(/\s*hz$/i, ''));
+      if (!(f > 0) || !Number.isFinite(f)) throw new InputError('--frequency', `must be a positive frequency in Hz, got '${fText}'`);
+      const free = list(opt(v, 'free')) as NumericField[];
+      const id = opt(v, 'id');
+      const r = fitDma(start, sweep, { frequencyHz: f, ...(free.length > 0 ? { free } : {}), ...(id ? { id } : {}) });
+      const data = {
+        params: paramsToRecord(r.params),
+        free: r.free,
+        rms_log10: r.rmsLog10,
+        max_log10: r.maxLog10,
+        points: r.points,
+        iterations: r.iterations,
+        converged: r.converged,
+        reason: r.reason,
+        quality: r.quality,
+        notes: r.notes,
+        caution: CAUTION,
+      };
+      const written = writeOut(v, data);
+      const rows = r.free.map((x) => [x.field, sig(x.start, 4), sig(x.value, 4), x.atBound ? 'at bound' : '']);
+      emit(
+        out,
+        v,
+        data,
+        `DMA fit of '${r.params.id}' to ${r.points} points at ${f} Hz: rms ${r.rmsLog10.toFixed(4)} decades (quality ${r.quality}; ${r.reason})\n\n` +
+          markdownTable(['parameter', 'start', 'fitted', ''], rows) +
+          r.notes.map((n) => `\nnote: ${n}`).join('') +
+          `\n\n${written}${CAUTION}\n`,
+      );
+    },
+  },
+  creepmod: {
+    summary: 'apparent creep modulus (stress / creep strain) under constant load at a temperature after a time',
+    usage: "resin-derate creepmod --family ID --temp '80 degC' --time '1000 h' [--json]",
+    options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = resolveMaterial(materialInputFrom(v));
+      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const Ec = creepModulusMPa(m, tS, TK);
+      const Er = modulusMPa(m, tS, TK);
+      const data = {
+        creep_modulus_MPa: Ec,
+        relaxation_modulus_MPa: Er,
+        ratio: Ec / Er,
+        local_slope: localSlope(m, tS, TK),
+        temperature_C: kelvinToC(TK),
+        time_s: tS,
+      };
+      emit(
+        out,
+        v,
+        data,
+        `${m.params.id}: creep modulus ${sig(Ec)} MPa (relaxation modulus ${sig(Er)} MPa at the same time and temperature)\n`,
+      );
+    },
+  },
+  demodata: {
+    summary: 'print the INVENTED demo test data (relaxation curves or a DMA sweep of the demo latch PC) as CSV',
+    usage: 'resin-derate demodata --what relaxation|dma',
+    options: { what: { type: 'string' } },
+    run(v, out) {
+      const what = opt(v, 'what') ?? 'relaxation';
+      if (what !== 'relaxation' && what !== 'dma') throw new InputError('--what', `must be relaxation or dma, got '${what}'`);
+      out.write(what === 'dma' ? inventedDmaCsv() : inventedRelaxationCsv());
+    },
+  },
+};

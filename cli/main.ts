@@ -1,0 +1,355 @@
+/** The `resin-derate` command line: the engine's answers as text tables or JSON. */
+import { parseArgs } from 'node:util';
+import {
+  apparentTgK,
+  bandEstimate,
+  checkStrain,
+  checkTemperatureInDomain,
+  parseStrain,
+  retainedStressMPa,
+  deratingTable,
+  equivalentTimeS,
+  FAMILIES,
+  InputError,
+  isPronySpec,
+  pronyToRecord,
+  pronyToTable,
+  kelvinToC,
+  maxTemperatureK,
+  maxTimeS,
+  modulusAfterHistory,
+  ParameterError,
+  paramsToRecord,
+  parseStressMPa,
+  parseTemperatureK,
+  parseTimeS,
+  resolveMaterial,
+  shiftLog10,
+  simulateHdt,
+  SolverError,
+  UnknownFamilyError,
+  type InverseAnswer,
+  type Material,
+} from '../src/index.js';
+import { csvTable, markdownTable, sig } from './format.js';
+import { runDemo } from './demo.js';
+import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
+import { CALIBRATION_COMMANDS } from './calibration.js';
+import { emit, json, material, materialInputFrom, str, type Command, type Out, type Values } from './command.js';
+
+export type { Out } from './command.js';
+
+const CAUTION =
+  'Screening estimates only: confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code and defer to licensed engineering review for parts whose failure can hurt someone.';
+
+function materialFrom(v: Values): Material {
+  return resolveMaterial(materialInputFrom(v));
+}
+
+function listOf(text: string, argument: string): string[] {
+  const items = text
+    .split(',')
+    .map((s) => s.trim())
+    .filter((s) => s !== '');
+  if (items.length === 0) throw new InputError(argument, 'needs a comma-separated list');
+  return items;
+}
+
+/** Runs an engine call whose InputErrors name engine arguments, renaming them to the CLI options they came from. */
+function renamed<T>(names: Readonly<Record<string, string>>, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    const to = e instanceof InputError ? names[e.argument] : undefined;
+    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
+    throw e;
+  }
+}
+
+function inverseText(a: InverseAnswer, above: string, below: string): string {
+  return a.status === 'above-throughout' ? above : below;
+}
+
+const COMMANDS: Record<string, Command> = {
+  families: {
+    summary: 'list the bundled polymer families',
+    usage: 'resin-derate families [--json]',
+    options: { ...json },
+    run(v, out) {
+      const data = FAMILIES.map((f) => ({
+        id: f.params.id,
+        name: f.params.name,
+        kind: f.params.kind,
+        Tg_C: f.params.Tg_C,
+        Tm_C: f.params.Tm_C,
+        E23_MPa: f.params.E23_MPa,
+        sources: f.sources,
+      }));
+      const rows = FAMILIES.map((f) => [
+        f.params.id,
+        f.params.kind,
+        String(f.params.Tg_C),
+        f.params.Tm_C === null ? '' : String(f.params.Tm_C),
+        f.params.E23_MPa === null ? '' : String(f.params.E23_MPa),
+        f.params.name,
+      ]);
+      emit(out, v, data, markdownTable(['id', 'kind', 'Tg degC', 'Tm degC', 'E23 MPa', 'name'], rows));
+    },
+  },
+  params: {
+    summary: 'print the full parameter record of a family (edit it and pass it back with --params)',
+    usage: 'resin-derate params --family ID [--json]',
+    options: { ...material, ...json },
+    run(v, out) {
+      const input = materialInputFrom(v);
+      if (isPronySpec(input)) {
+        const rows = pronyToTable(input);
+        emit(out, v, pronyToRecord(input), rows.map((r) => r.map((c) => String(c)).join('\t')).join('\n') + '\n');
+        return;
+      }
+      const m = resolveMaterial(input);
+      const rec = paramsToRecord(m.params);
+      const text = Object.entries(rec)
+        .map(([k, x]) => `${k.padEnd(18)} ${x === null ? '' : String(x)}`)
+        .join('\n');
+      emit(out, v, rec, text + '\n');
+    },
+  },
+  modulus: {
+    summary: 'relaxation modulus at a temperature and time, with its region and band',
+    usage: "resin-derate modulus --family ID --temp '80 degC' --time '1000 h' [--json]",
+    options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const b = bandEstimate(m, tS, TK);
+      const data = {
+        modulus_MPa: b.centralMPa,
+        region: b.region,
+        low_MPa: b.lowMPa,
+        high_MPa: b.highMPa,
+        temperature_C: kelvinToC(TK),
+        time_s: tS,
+      };
+      emit(out, v, data, `${m.params.id}: ${sig(b.centralMPa)} MPa (${b.region}; band ${sig(b.lowMPa)} to ${sig(b.highMPa)} MPa)\n`);
+    },
+  },
+  shift: {
+    summary: 'log10 of the shift factor a_T relative to the family Tg',
+    usage: "resin-derate shift --family ID --temp '120 degC' [--json]",
+    options: { ...material, temp: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
+      const log10aT = shiftLog10(m.shift, TK);
+      const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
+      emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
+    },
+  },
+  maxtemp: {
+    summary: 'highest temperature at which the modulus stays at or above a required value for a time',
+    usage: "resin-derate maxtemp --family ID --modulus '800 MPa' --time '1000 h' [--json]",
+    options: { ...material, modulus: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const req = parseStressMPa(str(v, 'modulus'), '--modulus');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const a = maxTemperatureK(m, req, tS);
+      const T = a.value === null ? null : kelvinToC(a.value);
+      const note = inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
+      emit(
+        out,
+        v,
+        { temperature_C: T, status: a.status, ...(T === null ? { not_reached: note } : {}) },
+        T === null ? `${note}\n` : `${sig(T, 4)} degC\n`,
+      );
+    },
+  },
+  maxtime: {
+    summary: 'longest time for which the modulus stays at or above a required value at a temperature',
+    usage: "resin-derate maxtime --family ID --modulus '800 MPa' --temp '80 degC' [--json]",
+    options: { ...material, modulus: { type: 'string' }, temp: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const req = parseStressMPa(str(v, 'modulus'), '--modulus');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
+      const a = maxTimeS(m, req, TK);
+      const note = inverseText(a, 'beyond 100 years', 'never reached: below the required modulus already at 1 ms');
+      emit(
+        out,
+        v,
+        {
+          time_s: a.value,
+          time_h: a.value === null ? null : a.value / 3600,
+          status: a.status,
+          ...(a.value === null ? { not_reached: note } : {}),
+        },
+        a.value === null ? `${note}\n` : `${sig(a.value / 3600, 4)} h\n`,
+      );
+    },
+  },
+  tgat: {
+    summary: 'apparent Tg at a time scale (the temperature where the glass-transition time equals it)',
+    usage: "resin-derate tgat --family ID --time '1000 h' [--json]",
+    options: { ...material, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const TK = apparentTgK(m, tS);
+      const T = TK === null ? null : kelvinToC(TK);
+      emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${sig(T, 4)} degC\n`);
+    },
+  },
+  eqtime: {
+    summary: 'equivalent time of a repeated duty cycle at a reference temperature, and the modulus after it',
+    usage: "resin-derate eqtime --family ID --cycle '70 degC:8 h,30 degC:16 h' --cycles 3650 [--ref '70 degC'] [--json]",
+    options: { ...material, cycle: { type: 'string' }, cycles: { type: 'string' }, ref: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const segments = listOf(str(v, 'cycle'), '--cycle').map((item, i) => {
+        const [T, t, extra] = item.split(':');
+        if (T === undefined || t === undefined || extra !== undefined) {
+          throw new InputError('--cycle', `segment ${i + 1} '${item}' must be TEMPERATURE:DURATION, such as '70 degC:8 h'`);
+        }
+        return { TK: checkTemperatureInDomain(m, parseTemperatureK(T, '--cycle'), '--cycle'), dtS: parseTimeS(t, '--cycle') };
+      });
+      const cycles = v['cycles'] === undefined ? 1 : Number(v['cycles']);
+      if (!Number.isFinite(cycles) || cycles <= 0)
+        throw new InputError('--cycles', `must be a positive number, got '${String(v['cycles'])}'`);
+      const refK =
+        v['ref'] === undefined
+          ? Math.max(...segments.map((s) => s.TK))
+          : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
+      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
+      const after = modulusAfterHistory(m, segments, cycles, refK);
+      emit(
+        out,
+        v,
+        {
+          equivalent_time_s: teq,
+          equivalent_time_h: teq / 3600,
+          ref_temperature_C: kelvinToC(refK),
+          modulus_MPa: after.modulusMPa,
+          region: after.region,
+        },
+        `${sig(teq / 3600, 4)} h at ${sig(kelvinToC(refK), 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+      );
+    },
+  },
+  stress: {
+    summary: 'stress retained at a fixed strain (press-fit, snap held closed) after a time at a temperature',
+    usage: "resin-derate stress --family ID --strain '0.5 %' --temp '80 degC' --time '1000 h' [--json]",
+    options: { ...material, strain: { type: 'string' }, temp: { type: 'string' }, time: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const strain = checkStrain(parseStrain(str(v, 'strain'), '--strain'), '--strain');
+      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const r = retainedStressMPa(m, strain, tS, TK);
+      const warn = r.beyondLinearRange ? ' (strain above about 1 %: beyond the usual linear range, estimate likely high)' : '';
+      emit(
+        out,
+        v,
+        { stress_MPa: r.stressMPa, modulus_MPa: r.modulusMPa, region: r.region, strain, beyond_linear_range: r.beyondLinearRange },
+        `${sig(r.stressMPa)} MPa retained (modulus ${sig(r.modulusMPa)} MPa, ${r.region})${warn}\n`,
+      );
+    },
+  },
+  hdt: {
+    summary: 'simulated ISO 75 heat deflection temperature at a flexural stress (A 1.80, B 0.45 MPa)',
+    usage: 'resin-derate hdt --family ID --stress 1.8 [--json]',
+    options: { ...material, stress: { type: 'string' }, ...json },
+    run(v, out) {
+      const m = materialFrom(v);
+      const stress = parseStressMPa(str(v, 'stress'), '--stress');
+      const r = simulateHdt(m, stress);
+      emit(
+        out,
+        v,
+        { temperature_C: r.temperatureC },
+        r.temperatureC === null ? 'not reached below 500 degC\n' : `${sig(r.temperatureC, 4)} degC\n`,
+      );
+    },
+  },
+  table: {
+    summary: 'derating table: modulus and ratio to 23 degC / 1 h for families at temperatures after a time',
+    usage: "resin-derate table --families PC,PA66-cond --temps 23,60,80 --time '1000 h' [--format md|csv|json]",
+    options: { families: { type: 'string' }, temps: { type: 'string' }, time: { type: 'string' }, format: { type: 'string' } },
+    run(v, out) {
+      const ids = listOf(str(v, 'families'), '--families');
+      const temps = listOf(str(v, 'temps'), '--temps').map((t) => kelvinToC(parseTemperatureK(t, '--temps')));
+      const tS = parseTimeS(str(v, 'time'), '--time');
+      const format = (v['format'] as string | undefined) ?? 'md';
+      if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
+      const rows = renamed({ reference: '--families', temperature: '--temps' }, () => deratingTable(ids, temps, tS));
+      if (format === 'json') {
+        const data = rows.map((r) => ({
+          id: r.id,
+          reference_MPa: r.referenceMPa,
+          cells: r.cells.map((c) => ({ temperature_C: c.temperatureC, modulus_MPa: c.modulusMPa, ratio: c.ratio, region: c.region })),
+        }));
+        out.write(JSON.stringify({ time_s: tS, reference: { temperature_C: 23, time_s: 3600 }, rows: data }, null, 2) + '\n');
+        return;
+      }
+      const header = ['family', ...temps.map((t) => `${sig(t, 4)} degC MPa`), ...temps.map((t) => `ratio ${sig(t, 4)}`)];
+      const body = rows.map((r) => [r.id, ...r.cells.map((c) => sig(c.modulusMPa)), ...r.cells.map((c) => c.ratio.toFixed(2))]);
+      out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
+    },
+  },
+  ...CALIBRATION_COMMANDS,
+  demo: {
+    summary: 'run the bundled demo scenario (invented): print its derating review and write it as a workbook of DERATE formulas',
+    usage: `resin-derate demo [--workbook ${DEMO_WORKBOOK_PATH}]`,
+    options: { workbook: { type: 'string' } },
+    async run(v, out) {
+      const review = runDemo(out);
+      const path = await writeDemoWorkbook(review, typeof v['workbook'] === 'string' ? v['workbook'] : DEMO_WORKBOOK_PATH);
+      out.write(`\nWrote ${path} (DERATE.* formulas with the values above cached; open it in Excel with the Resin Derate add-in).\n`);
+    },
+  },
+};
+
+function helpText(): string {
+  const lines = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
+  return `resin-derate: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\n${CAUTION}\n`;
+}
+
+/** Runs the CLI with the given arguments; returns the exit code. */
+export async function main(argv: readonly string[], out: Out, err: Out): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    out.write(helpText());
+    if (name === undefined) err.write('resin-derate: a command is required; the commands are listed above\n');
+    return name === undefined ? 1 : 0;
+  }
+  const command = COMMANDS[name];
+  if (!command) {
+    err.write(`resin-derate: unknown command '${name}'; commands: ${Object.keys(COMMANDS).join(', ')}\n`);
+    return 2;
+  }
+  try {
+    const { values } = parseArgs({
+      args: [...rest],
+      options: { ...command.options, help: { type: 'boolean', short: 'h' } },
+      strict: true,
+      allowPositionals: false,
+    });
+    if (values['help']) {
+      out.write(`${command.summary}\n\nUsage: ${command.usage}\n`);
+      return 0;
+    }
+    await command.run(values as Values, out);
+    return 0;
+  } catch (e) {
+    err.write(`resin-derate ${name}: ${describeError(e).replace(/\s*\n\s*/g, ' ')}\n`);
+    return 2;
+  }
+}
+
+function describeError(e: unknown): string {
+  if (e instanceof InputError || e instanceof ParameterError || e instanceof UnknownFamilyError || e instanceof SolverError)
+    return e.message;
+  if (e instanceof Error && 'code' in e && typeof e.code === 'string' && e.code.startsWith('ERR_PARSE_ARGS')) return e.message;
+  throw e;
+}

@@ -1,0 +1,426 @@
+/**
+ * The bundled polymer families, keyed by ISO 1043-1 symbols (elastomers by ISO 1629). Every number
+ * carries its source: a handbook, "common practice", "from memory", or "set here" (an estimate made
+ * in this project, with how it was made). Values are for unfilled, general-purpose grades.
+ */
+import { UnknownFamilyError } from '../base/errors.js';
+import type { Kind, MaterialParams, NumericField } from './params.js';
+import { WLF_UNIVERSAL_C1, WLF_UNIVERSAL_C2_K } from './shift.js';
+
+export const SRC = {
+  handbookTg:
+    'Brandrup, Immergut, Grulke (eds.), Polymer Handbook, 4th ed. 1999, typical range (from memory; entries not checked one by one)',
+  datasheetE: 'common practice: typical unfilled-grade datasheet tensile modulus at 23 degC (from memory)',
+  wlfUniversal: 'Williams, Landel, Ferry, J. Am. Chem. Soc. 77 (1955) 3701: universal constants with Tg as reference',
+  eaGlass:
+    'set here: between the long-time creep of aged glasses (100 to 300 kJ/mol, from memory) and the WLF slope at Tg (about 900 kJ/mol, derived: Ea = 2.303 R C1 Tg^2 / C2), so that long-term limits fall some 20 to 30 K below Tg (common practice)',
+  tauTg: 'common practice: the DSC Tg corresponds to a relaxation time of the order of 100 s (from memory)',
+  beta: 'from memory: KWW stretching exponent of the segmental relaxation, about 0.3 to 0.5 (Roland and Ngai, Macromolecules 24 (1991) 5315)',
+  plateau: 'from memory: entangled plateau E ~ 3 G_N0, 0.5 to 10 MPa (Tobolsky 1960; Ferry 1980)',
+  flow: 'set here: plateau width of a commercial molar mass, order of magnitude (from memory)',
+  creepN:
+    'set here: gives a 1000 h / 10 s modulus ratio typical of the family at 23 degC (from memory: about 0.8 to 0.9 for glassy, 0.4 to 0.6 for soft semi-crystalline grades)',
+  creepEa: 'from memory: secondary relaxations 30 to 100 kJ/mol (Starkweather, Macromolecules 14 (1981) 1277)',
+  crystallinity: 'from memory: typical crystallinity of moulded parts',
+  continuity: 'set here: crystals carry load in parallel (Takayanagi phi = 1), so the crystal plateau survives flow of the amorphous phase',
+  melt: 'set here so that the simulated ISO 75 HDT/A and HDT/B (1.80 / 0.45 MPa) come near typical unfilled-grade values (from memory)',
+  creepEaCrystal:
+    'literature: alpha relaxations of semi-crystalline polyethylene, about 110 and 190 kJ/mol; the lower value is used here for the soft semi-crystalline families (set here)',
+  moisture:
+    'from memory: conditioning at 23 degC / 50 % RH lowers the Tg of PA6 and PA66 by about 40 to 60 K and their 23 degC modulus by a factor of 2 to 3',
+  network: 'from memory: typical network density of the family; E = 3 rho R T / Mc (Flory 1953; Treloar 1975)',
+  glassyModulus: 'common practice: glassy modulus of organic polymers, 1 to 4 GPa (Tobolsky 1960, from memory)',
+  ferryPS: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: polystyrene (from memory)',
+  ferryNR: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: natural rubber (from memory)',
+  disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
+} as const;
+
+type SourceMap = Partial<Record<NumericField, string>>;
+
+/** One bundled family: its parameters and the source of each number. */
+export interface Family {
+  readonly params: MaterialParams;
+  readonly sources: Readonly<SourceMap>;
+  readonly note: string;
+}
+
+interface Entry {
+  id: string;
+  name: string;
+  kind: Kind;
+  note?: string;
+  /** [value, low, high] */
+  Tg: [number, number, number];
+  Tm?: [number, number, number];
+  E23?: [number, number, number];
+  Eg?: number;
+  set?: Partial<MaterialParams>;
+  src?: SourceMap;
+}
+
+const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: SourceMap }> = {
+  amorphous: {
+    values: { Ea_kJmol: 600, beta: 0.4, plateau_MPa: 2, flowDecades: 4, flowBeta: 0.6, creepN: 0.012, creepEa_kJmol: 60 },
+    sources: {},
+  },
+  semicrystalline: {
+    values: {
+      Ea_kJmol: 600,
+      beta: 0.35,
+      plateau_MPa: 2,
+      flowDecades: 4,
+      flowBeta: 0.6,
+      creepN: 0.03,
+      creepEa_kJmol: 60,
+      crystalContinuity: 1,
+      meltSharpness: 8,
+    },
+    sources: {},
+  },
+  crosslinked: {
+    values: { Ea_kJmol: 600, beta: 0.3, creepN: 0.008, creepEa_kJmol: 60 },
+    sources: {},
+  },
+};
+
+const ENTRIES: Entry[] = [
+  {
+    id: 'PE-HD',
+    name: 'polyethylene, high density',
+    kind: 'semicrystalline',
+    Tg: [-100, -120, -80],
+    Tm: [133, 130, 137],
+    E23: [1000, 800, 1400],
+    set: { crystallinity: 0.7, meltSharpness: 6, creepN: 0.07, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'PE-LD',
+    name: 'polyethylene, low density',
+    kind: 'semicrystalline',
+    Tg: [-100, -120, -80],
+    Tm: [110, 105, 115],
+    E23: [200, 150, 300],
+    set: { crystallinity: 0.45, meltSharpness: 6, creepN: 0.08, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'PP',
+    name: 'polypropylene (homopolymer)',
+    kind: 'semicrystalline',
+    Tg: [-10, -20, 0],
+    Tm: [164, 160, 168],
+    E23: [1500, 1300, 1800],
+    set: { crystallinity: 0.5, meltSharpness: 6, creepN: 0.06, creepEa_kJmol: 110 },
+    src: { creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'PS',
+    name: 'polystyrene (general purpose)',
+    kind: 'amorphous',
+    Tg: [100, 95, 105],
+    E23: [3200, 3000, 3400],
+    set: { C1: 13.7, C2_K: 50 },
+    src: { C1: SRC.ferryPS, C2_K: SRC.ferryPS },
+  },
+  { id: 'PMMA', name: 'poly(methyl methacrylate)', kind: 'amorphous', Tg: [110, 100, 120], E23: [3100, 2700, 3300] },
+  { id: 'PC', name: 'polycarbonate (bisphenol A)', kind: 'amorphous', Tg: [147, 145, 150], E23: [2350, 2200, 2500] },
+  { id: 'PVC-U', name: 'poly(vinyl chloride), unplasticized', kind: 'amorphous', Tg: [80, 75, 85], E23: [3000, 2700, 3300] },
+  {
+    id: 'ABS',
+    name: 'acrylonitrile-butadiene-styrene',
+    kind: 'amorphous',
+    Tg: [105, 100, 110],
+    E23: [2300, 2000, 2600],
+    note: 'Tg of the SAN phase',
+  },
+  { id: 'PSU', name: 'polysulfone', kind: 'amorphous', Tg: [187, 185, 190], E23: [2500, 2400, 2700] },
+  { id: 'PESU', name: 'polyethersulfone', kind: 'amorphous', Tg: [222, 220, 225], E23: [2700, 2600, 2900] },
+  { id: 'PEI', name: 'polyetherimide', kind: 'amorphous', Tg: [216, 215, 217], E23: [3200, 3000, 3400] },
+  {
+    id: 'PA6-dry',
+    name: 'polyamide 6, dry as moulded',
+    kind: 'semicrystalline',
+    Tg: [55, 50, 60],
+    Tm: [222, 220, 225],
+    E23: [3000, 2600, 3300],
+    set: { crystallinity: 0.35 },
+  },
+  {
+    id: 'PA6-cond',
+    name: 'polyamide 6, conditioned 23 degC / 50 % RH',
+    kind: 'semicrystalline',
+    Tg: [10, 0, 20],
+    Tm: [222, 220, 225],
+    E23: [1100, 900, 1400],
+    set: { crystallinity: 0.35 },
+    src: { Tg_C: SRC.moisture, E23_MPa: SRC.moisture },
+  },
+  {
+    id: 'PA66-dry',
+    name: 'polyamide 66, dry as moulded',
+    kind: 'semicrystalline',
+    Tg: [60, 50, 70],
+    Tm: [260, 255, 265],
+    E23: [3100, 2800, 3500],
+    set: { crystallinity: 0.4, meltSharpness: 7 },
+  },
+  {
+    id: 'PA66-cond',
+    name: 'polyamide 66, conditioned 23 degC / 50 % RH',
+    kind: 'semicrystalline',
+    Tg: [20, 10, 30],
+    Tm: [260, 255, 265],
+    E23: [1500, 1200, 1800],
+    set: { crystallinity: 0.4, meltSharpness: 7 },
+    src: { Tg_C: SRC.moisture, E23_MPa: SRC.moisture },
+  },
+  {
+    id: 'POM',
+    name: 'polyoxymethylene, copolymer',
+    kind: 'semicrystalline',
+    Tg: [-70, -80, -60],
+    Tm: [165, 162, 168],
+    E23: [2800, 2600, 3000],
+    set: { crystallinity: 0.6, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'POM-H',
+    name: 'polyoxymethylene, homopolymer',
+    kind: 'semicrystalline',
+    Tg: [-70, -80, -60],
+    Tm: [176, 175, 178],
+    E23: [3000, 2800, 3200],
+    set: { crystallinity: 0.65, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'PET',
+    name: 'poly(ethylene terephthalate), crystallized',
+    kind: 'semicrystalline',
+    Tg: [75, 70, 80],
+    Tm: [255, 250, 260],
+    E23: [2800, 2500, 3100],
+    set: { crystallinity: 0.35 },
+  },
+  {
+    id: 'PBT',
+    name: 'poly(butylene terephthalate)',
+    kind: 'semicrystalline',
+    Tg: [50, 40, 60],
+    Tm: [223, 220, 225],
+    E23: [2500, 2300, 2700],
+    set: { crystallinity: 0.35 },
+  },
+  {
+    id: 'PPS',
+    name: 'poly(phenylene sulfide)',
+    kind: 'semicrystalline',
+    Tg: [90, 85, 95],
+    Tm: [282, 280, 285],
+    E23: [3600, 3300, 3900],
+    set: { crystallinity: 0.4 },
+  },
+  {
+    id: 'PEEK',
+    name: 'polyetheretherketone',
+    kind: 'semicrystalline',
+    Tg: [143, 143, 145],
+    Tm: [340, 335, 343],
+    E23: [3700, 3500, 4000],
+    set: { crystallinity: 0.35 },
+  },
+  {
+    id: 'PTFE',
+    name: 'polytetrafluoroethylene',
+    kind: 'semicrystalline',
+    Tg: [-97, -110, -80],
+    Tm: [327, 325, 330],
+    E23: [500, 400, 750],
+    set: { crystallinity: 0.6, creepN: 0.08, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'PVDF',
+    name: 'poly(vinylidene fluoride)',
+    kind: 'semicrystalline',
+    Tg: [-38, -40, -35],
+    Tm: [172, 165, 178],
+    E23: [2000, 1700, 2500],
+    set: { crystallinity: 0.5, creepEa_kJmol: 110 },
+    src: { creepEa_kJmol: SRC.creepEaCrystal },
+  },
+  {
+    id: 'EP',
+    name: 'epoxy, amine-cured bisphenol A diglycidyl ether',
+    kind: 'crosslinked',
+    Tg: [140, 100, 180],
+    E23: [3000, 2700, 3300],
+    set: { density_kgm3: 1200, Mc_kgmol: 0.4 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network },
+  },
+  {
+    id: 'EPDM',
+    name: 'ethylene-propylene-diene rubber, sulfur-cured',
+    kind: 'crosslinked',
+    Tg: [-50, -55, -45],
+    Eg: 2000,
+    set: { density_kgm3: 860, Mc_kgmol: 2 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network },
+  },
+  {
+    id: 'NR',
+    name: 'natural rubber, sulfur-cured',
+    kind: 'crosslinked',
+    Tg: [-70, -72, -65],
+    Eg: 2000,
+    set: { density_kgm3: 930, Mc_kgmol: 4, C1: 16.7, C2_K: 53.6 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network, C1: SRC.ferryNR, C2_K: SRC.ferryNR },
+  },
+  {
+    id: 'VMQ',
+    name: 'silicone rubber (methyl vinyl)',
+    kind: 'crosslinked',
+    Tg: [-125, -130, -120],
+    Eg: 1500,
+    set: { density_kgm3: 1150, Mc_kgmol: 5 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network },
+  },
+];
+
+const BASE_SOURCES: SourceMap = {
+  Tg_C: SRC.handbookTg,
+  Tg_low_C: SRC.handbookTg,
+  Tg_high_C: SRC.handbookTg,
+  Tm_C: SRC.handbookTg,
+  Tm_low_C: SRC.handbookTg,
+  Tm_high_C: SRC.handbookTg,
+  E23_MPa: SRC.datasheetE,
+  E23_low_MPa: SRC.datasheetE,
+  E23_high_MPa: SRC.datasheetE,
+  Eg_MPa: SRC.glassyModulus,
+  C1: SRC.wlfUniversal,
+  C2_K: SRC.wlfUniversal,
+  Ea_kJmol: SRC.eaGlass,
+  tauTg_s: SRC.tauTg,
+  beta: SRC.beta,
+  plateau_MPa: SRC.plateau,
+  flowDecades: SRC.flow,
+  flowBeta: SRC.flow,
+  creepN: SRC.creepN,
+  creepEa_kJmol: SRC.creepEa,
+  crystallinity: SRC.crystallinity,
+  crystalContinuity: SRC.continuity,
+  meltSharpness: SRC.melt,
+};
+
+/** A record with every field empty (null) or at its neutral default; the base of every family. */
+export function blankParams(id: string, kind: Kind): MaterialParams {
+  return {
+    id,
+    name: id,
+    kind,
+    shiftLaw: 'hybrid',
+    Tg_C: 0,
+    Tm_C: null,
+    E23_MPa: null,
+    Eg_MPa: null,
+    plateau_MPa: 2,
+    crystallinity: 0.5,
+    crystalContinuity: 1,
+    meltSharpness: 14,
+    C1: WLF_UNIVERSAL_C1,
+    C2_K: WLF_UNIVERSAL_C2_K,
+    Ea_kJmol: 300,
+    tauTg_s: 100,
+    beta: 0.4,
+    flowDecades: 4,
+    flowBeta: 0.6,
+    creepN: 0.01,
+    creepEa_kJmol: 60,
+    density_kgm3: 1000,
+    Mc_kgmol: 1,
+    Tg_low_C: null,
+    Tg_high_C: null,
+    Tm_low_C: null,
+    Tm_high_C: null,
+    E23_low_MPa: null,
+    E23_high_MPa: null,
+  };
+}
+
+function toFamily(e: Entry): Family {
+  const d = KIND_DEFAULTS[e.kind];
+  const p: MaterialParams = { ...blankParams(e.id, e.kind), ...d.values, name: e.name };
+  [p.Tg_C, p.Tg_low_C, p.Tg_high_C] = e.Tg;
+  if (e.Tm) [p.Tm_C, p.Tm_low_C, p.Tm_high_C] = e.Tm;
+  if (e.E23) [p.E23_MPa, p.E23_low_MPa, p.E23_high_MPa] = e.E23;
+  if (e.Eg !== undefined) p.Eg_MPa = e.Eg;
+  Object.assign(p, e.set);
+  const sources: SourceMap = { ...BASE_SOURCES, ...d.sources, ...e.src };
+  for (const key of Object.keys(sources) as NumericField[]) {
+    if (p[key] === null || !isUsed(key, e.kind)) delete sources[key];
+  }
+  return { params: Object.freeze(p) as MaterialParams, sources: Object.freeze(sources), note: e.note ?? '' };
+}
+
+const UNUSED_BY_KIND: Record<Kind, ReadonlySet<NumericField>> = {
+  amorphous: new Set<NumericField>(['crystallinity', 'crystalContinuity', 'meltSharpness', 'density_kgm3', 'Mc_kgmol', 'Tm_C']),
+  semicrystalline: new Set<NumericField>(['density_kgm3', 'Mc_kgmol']),
+  crosslinked: new Set<NumericField>([
+    'crystallinity',
+    'crystalContinuity',
+    'meltSharpness',
+    'plateau_MPa',
+    'flowDecades',
+    'flowBeta',
+    'Tm_C',
+  ]),
+};
+
+function isUsed(key: NumericField, kind: Kind): boolean {
+  return !UNUSED_BY_KIND[kind].has(key);
+}
+
+/** All bundled families, in table order. */
+export const FAMILIES: readonly Family[] = ENTRIES.map(toFamily);
+
+const BY_ID = new Map(FAMILIES.map((f) => [f.params.id.toLowerCase(), f]));
+
+/** Looks up a family by id (case-insensitive); throws UnknownFamilyError with the closest ids. */
+export function getFamily(id: string): Family {
+  const key = id.trim().toLowerCase();
+  const found = BY_ID.get(key);
+  if (found) return found;
+  throw new UnknownFamilyError(id, suggestFamilies(id));
+}
+
+/** Up to three family ids closest to the given text (prefix match first, then edit distance). */
+export function suggestFamilies(text: string): string[] {
+  const q = text.trim().toLowerCase();
+  const scored = FAMILIES.map((f) => {
+    const id = f.params.id.toLowerCase();
+    const score = id.startsWith(q) || (q.length > 0 && id.split('-')[0] === q.split('-')[0]) ? 0 : editDistance(q, id);
+    return { id: f.params.id, score };
+  });
+  scored.sort((a, b) => a.score - b.score || a.id.localeCompare(b.id));
+  return scored
+    .filter((s) => s.score <= Math.max(2, Math.floor(q.length / 2)))
+    .slice(0, 3)
+    .map((s) => s.id);
+}
+
+/** Levenshtein distance (insertions, deletions and substitutions each count 1). */
+export function editDistance(a: string, b: string): number {
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      cur[j] = Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + cost);
+    }
+    prev = cur;
+  }
+  return prev[b.length] ?? 0;
+}

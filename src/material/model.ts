@@ -1,0 +1,315 @@
+/**
+ * The four-region relaxation modulus E_r(t, T) in MPa.
+ *
+ * Main clock: reduced time xi = t / a_T(T) at Tg (hybrid WLF/Arrhenius). Slow-creep clock: theta =
+ * t / tau_c(T), tau_c = 1 s at 23 degC, Arrhenius with creepEa. With x = xi / tauTg:
+ *   glass transition  G = exp(-x^beta)                         (KWW; Roland and Ngai 1991)
+ *   terminal flow     F = exp(-(x / 10^flowDecades)^flowBeta)
+ *   slow creep        g = (1 + theta)^-creepN                  (bounded power law, Findley style)
+ *   amorphous         E = g [(Eg - Ep) G + Ep F]
+ *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, Ec = g Eg,
+ *                     Ea = amorphous E, lambda phi = X(T), X(T) = X exp(-ln20 [(T/Tm)^m - (T23/Tm)^m])
+ *                     above 23 degC (melting; X at and below 23 degC), times exp(-(T - Tm)/2 K) above Tm
+ *                     (also below 23 degC when Tm is, so E stays continuous)
+ *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113)
+ *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
+ * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
+ * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
+ * A Prony-series material (pronymaterial.ts, fitted from test curves) is evaluated by the same entry
+ * points: E = E_inf + sum E_i exp(-xi / tau_i), with its own shift law.
+ */
+import { InputError, ParameterError } from '../base/errors.js';
+import type { Kind, MaterialParams } from './params.js';
+import { validateParams } from './params.js';
+import { pronyModulusMPa, pronyGlassyMPa, type PronySeries } from './prony.js';
+import { brentRoot } from '../numeric/roots.js';
+import { arrheniusLog10, GAS_CONSTANT, shiftLog10, WLF_SINGULARITY_MARGIN_K, type ShiftConstants } from './shift.js';
+import { KELVIN_OFFSET } from '../base/units.js';
+
+/** The reference temperature of the datasheet modulus and of the slow-creep clock, kelvin (ISO 291 standard atmosphere 23 degC). */
+export const T23_K = 23 + KELVIN_OFFSET;
+/**
+ * Loading time that a datasheet short-term modulus stands for, seconds. Common practice: an ISO 527
+ * tensile modulus (0.05 to 0.25 % strain at 1 mm/min) is measured over roughly ten seconds (from memory).
+ */
+export const DATASHEET_TIME_S = 10;
+/** Crystalline fraction left at Tm, relative to 23 degC, in the melting law (set here: 5 % survive to the DSC peak). */
+export const MELT_REMAINING_AT_TM = 0.05;
+const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
+/** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
+export const MELT_TAIL_K = 2;
+
+export type Region = 'glassy' | 'transition' | 'rubbery' | 'flow' | 'crystalline' | 'melting';
+export const REGIONS: readonly Region[] = ['glassy', 'transition', 'rubbery', 'flow', 'crystalline', 'melting'];
+
+/** A validated material with its constants precomputed for fast evaluation. */
+export interface Material {
+  readonly params: MaterialParams;
+  readonly kind: Kind;
+  readonly shift: ShiftConstants;
+  readonly EgMPa: number;
+  readonly tauTg: number;
+  readonly beta: number;
+  readonly tauFlow: number;
+  /** ln(tauTg / 1 s). */
+  readonly lnTauTg: number;
+  /** ln(tauFlow / tauTg). */
+  readonly lnFlowRatio: number;
+  readonly flowBeta: number;
+  readonly plateau: number;
+  readonly creepN: number;
+  readonly creepLog10PerInvK: number;
+  readonly crystallinity: number;
+  readonly phi: number;
+  readonly TmK: number;
+  readonly meltSharpness: number;
+  /** (T23 / Tm)^m, so that the melting law is normalized to the crystallinity at 23 degC. */
+  readonly melt23: number;
+  /** 3 rho R / Mc in MPa per kelvin (crosslinked), else 0. */
+  readonly networkMPaPerK: number;
+  /**
+   * A Prony-series material (pronymaterial.ts): E = Prony(xi), relaxation times at the shift reference
+   * temperature; null for the four-region model.
+   */
+  readonly prony: PronySeries | null;
+}
+
+/** Contributions behind one evaluation, for the region and for tests. */
+export interface Evaluation {
+  readonly modulusMPa: number;
+  readonly region: Region;
+  readonly glassFraction: number;
+  readonly flowFraction: number;
+  readonly creepFactor: number;
+  readonly crystalRemaining: number;
+}
+
+const compiled = new WeakMap<MaterialParams, Material>();
+
+/** Validates a parameter record and precomputes its constants (cached per record object). */
+export function compileMaterial(params: MaterialParams): Material {
+  const cached = compiled.get(params);
+  if (cached) return cached;
+  validateParams(params);
+  const base = build(params, params.Eg_MPa ?? 1000);
+  const material = params.E23_MPa === null ? checkGlassy(base) : anchorGlassyModulus(base, params.E23_MPa);
+  compiled.set(params, material);
+  return material;
+}
+
+function build(p: MaterialParams, EgMPa: number): Material {
+  const TgK = p.Tg_C + KELVIN_OFFSET;
+  return {
+    params: p,
+    kind: p.kind,
+    shift: { law: p.shiftLaw, TrefK: TgK, C1: p.C1, C2K: p.C2_K, EakJ: p.Ea_kJmol },
+    EgMPa,
+    tauTg: p.tauTg_s,
+    beta: p.beta,
+    tauFlow: p.tauTg_s * 10 ** p.flowDecades,
+    lnTauTg: Math.log(p.tauTg_s),
+    lnFlowRatio: p.flowDecades * Math.LN10,
+    flowBeta: p.flowBeta,
+    plateau: p.kind === 'crosslinked' ? 0 : p.plateau_MPa,
+    creepN: p.creepN,
+    creepLog10PerInvK: (p.creepEa_kJmol * 1000) / (GAS_CONSTANT * Math.LN10),
+    crystallinity: p.kind === 'semicrystalline' ? p.crystallinity : 0,
+    phi: p.kind === 'semicrystalline' ? p.crystalContinuity : 1,
+    TmK: p.Tm_C === null ? Infinity : p.Tm_C + KELVIN_OFFSET,
+    meltSharpness: p.meltSharpness,
+    melt23: p.Tm_C === null ? 0 : (T23_K / (p.Tm_C + KELVIN_OFFSET)) ** p.meltSharpness,
+    networkMPaPerK: p.kind === 'crosslinked' ? (3 * p.density_kgm3 * GAS_CONSTANT) / p.Mc_kgmol / 1e6 : 0,
+    prony: null,
+  };
+}
+
+function checkGlassy(m: Material): Material {
+  const rubber = Math.max(m.plateau, m.networkMPaPerK * T23_K);
+  if (m.EgMPa < 10 * rubber) {
+    throw new ParameterError(
+      'Eg_MPa',
+      `${m.EgMPa} MPa must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa)`,
+      m.EgMPa,
+    );
+  }
+  return m;
+}
+
+/** Solves the glassy modulus so that E(23 degC, datasheet time) equals E23 (MPa). */
+function anchorGlassyModulus(base: Material, E23: number): Material {
+  const s = base.shift;
+  if (s.law === 'wlf' && T23_K - s.TrefK <= -s.C2K + WLF_SINGULARITY_MARGIN_K) {
+    throw new ParameterError(
+      'E23_MPa',
+      `cannot anchor the 23 degC modulus: the pure WLF law is undefined at 23 degC (at or below Tg - C2 + ${WLF_SINGULARITY_MARGIN_K} K); give Eg_MPa instead, or use the hybrid law`,
+      E23,
+    );
+  }
+  const at = (logEg: number): number => evaluateClocks(build(base.params, 10 ** logEg), DATASHEET_TIME_S, T23_K).modulusMPa;
+  const lo = Math.log10(50);
+  const hi = Math.log10(20000);
+  const eLo = at(lo);
+  const eHi = at(hi);
+  if (E23 < eLo || E23 > eHi) {
+    throw new ParameterError(
+      'E23_MPa',
+      `${E23} MPa cannot be reached with a glassy modulus from 50 to 20000 MPa (that range gives ${eLo.toPrecision(3)} to ${eHi.toPrecision(3)} MPa at 23 degC); check Tg_C and the kind, or give Eg_MPa instead`,
+      E23,
+    );
+  }
+  const r = brentRoot((x) => at(x) / E23 - 1, lo, hi, 1e-12);
+  return checkGlassy(build(base.params, 10 ** r.root));
+}
+
+/**
+ * Checks that the material's shift law is defined at T (K) (a pure WLF law is not at or below
+ * Tg - C2 + 1 K) and returns T; the error names `argument`, the input the temperature came from.
+ */
+export function checkTemperatureInDomain(m: Material, TK: number, argument: string): number {
+  try {
+    shiftLog10(m.shift, TK);
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(argument, e.problem);
+    throw e;
+  }
+  return TK;
+}
+
+/** Relaxation modulus (MPa) at time t (s) and temperature T (K). */
+export function modulusMPa(m: Material, tS: number, TK: number): number {
+  const log10aT = shiftLog10(m.shift, TK);
+  if (m.prony) return pronyModulusMPa(m.prony, tS / 10 ** log10aT);
+  return modulusParts(m, lnReduced(m, tS, log10aT), creepClock(m, tS, TK), TK, SCRATCH);
+}
+
+/** Full evaluation (modulus in MPa, region, contributions) at time t (s) and temperature T (K). */
+export function evaluateClocks(m: Material, tS: number, TK: number): Evaluation {
+  const log10aT = shiftLog10(m.shift, TK);
+  if (m.prony) return evaluateProny(m.prony, tS / 10 ** log10aT);
+  return evaluateLn(m, lnReduced(m, tS, log10aT), creepClock(m, tS, TK), TK);
+}
+
+/** ln(xi / tauTg) for time t (s) and log10 a_T; the logs are taken apart so that extreme shifts stay finite or infinite, never NaN. */
+function lnReduced(m: Material, tS: number, log10aT: number): number {
+  return Math.log(tS) - m.lnTauTg - Math.LN10 * log10aT;
+}
+
+/** The slow-creep clock theta = t / tau_c(T) (dimensionless). */
+function creepClock(m: Material, tS: number, TK: number): number {
+  return m.creepN === 0 ? 0 : tS / 10 ** (m.creepLog10PerInvK * (1 / TK - 1 / T23_K));
+}
+
+/** Slow-creep clock rate: 1 / tau_c(T) in 1/s (tau_c = 1 s at 23 degC). */
+export function creepRate(m: Material, TK: number): number {
+  return 1 / 10 ** arrheniusLog10(TK, T23_K, m.params.creepEa_kJmol);
+}
+
+/** The contributions behind one modulus, filled in place so the hot path allocates nothing. */
+interface Parts {
+  G: number;
+  F: number;
+  g: number;
+  remaining: number;
+  glassy: number;
+  rubbery: number;
+  lambda: number;
+}
+
+const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0 };
+
+/**
+ * Modulus (MPa) of a four-region material from its clocks, writing the contributions into p. lnX = ln(xi / tauTg)
+ * with xi the reduced time at Tg (log space: exp is cheaper than pow on the hot path); theta the slow-creep clock.
+ */
+function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Parts): number {
+  const G = Math.exp(-Math.exp(m.beta * lnX));
+  const g = m.creepN === 0 ? 1 : Math.exp(-m.creepN * Math.log1p(theta));
+  p.G = G;
+  p.g = g;
+  if (m.kind === 'crosslinked') {
+    const Er = m.networkMPaPerK * TK;
+    p.glassy = g * Math.max(0, m.EgMPa - Er) * G;
+    p.rubbery = Er;
+    p.F = 1;
+    p.remaining = 0;
+    p.lambda = 0;
+    return p.glassy + Er;
+  }
+  const F = Math.exp(-Math.exp(m.flowBeta * (lnX - m.lnFlowRatio)));
+  const glassy = g * (m.EgMPa - m.plateau) * G;
+  const rubbery = g * m.plateau * F;
+  const Ea = glassy + rubbery;
+  p.F = F;
+  p.glassy = glassy;
+  p.rubbery = rubbery;
+  if (m.kind === 'amorphous') {
+    p.remaining = 0;
+    p.lambda = 0;
+    return Ea;
+  }
+  // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
+  const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
+  const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
+  const Ec = g * m.EgMPa;
+  const lambda = (m.crystallinity * remaining) / m.phi;
+  const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
+  p.remaining = remaining;
+  p.lambda = lambda;
+  return lambda * series + (1 - lambda) * Ea;
+}
+
+/** The region of a four-region evaluation from its contributions. */
+function regionOf(m: Material, E: number, p: Parts): Region {
+  if (m.kind === 'crosslinked') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : 'rubbery';
+  if (m.kind === 'amorphous') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : p.F >= 0.5 ? 'rubbery' : 'flow';
+  // Semi-crystalline: the amorphous phase is in transition while its glassy part carries at least a
+  // tenth of the stiffness; the crystals then hold a plateau until the melting law takes over.
+  return p.remaining < 0.5 && p.remaining >= 0.01
+    ? 'melting'
+    : p.G >= 0.9
+      ? 'glassy'
+      : (1 - p.lambda) * p.glassy >= 0.1 * E
+        ? 'transition'
+        : p.remaining >= 0.5
+          ? 'crystalline'
+          : p.F >= 0.5
+            ? 'rubbery'
+            : 'flow';
+}
+
+/**
+ * Modulus (MPa) from accumulated clocks: xi = reduced time at Tg (s), theta = slow-creep clock (1),
+ * with the time-independent parts (melting, network) taken at T (K).
+ */
+export function evaluateReduced(m: Material, xi: number, theta: number, TK: number): Evaluation {
+  if (m.prony) return evaluateProny(m.prony, xi);
+  return evaluateLn(m, Math.log(xi) - m.lnTauTg, theta, TK);
+}
+
+/** Four-region evaluation from ln(xi / tauTg), the slow-creep clock and T (K). */
+function evaluateLn(m: Material, lnX: number, theta: number, TK: number): Evaluation {
+  const p: Parts = { ...SCRATCH };
+  const E = modulusParts(m, lnX, theta, TK, p);
+  return {
+    modulusMPa: E,
+    region: regionOf(m, E, p),
+    glassFraction: p.G,
+    flowFraction: p.F,
+    creepFactor: p.g,
+    crystalRemaining: p.remaining,
+  };
+}
+
+/**
+ * A Prony material at reduced time xi. Region from the relaxed share of the series: glassy while at
+ * most a tenth of E_g - E_inf has relaxed, rubbery once within a factor 2 of E_inf > 0, flow once
+ * below a thousandth of E_g without E_inf, transition otherwise (set here).
+ */
+function evaluateProny(p: PronySeries, xi: number): Evaluation {
+  const E = pronyModulusMPa(p, xi);
+  const Eg = pronyGlassyMPa(p);
+  const share = Eg > p.EinfMPa ? (E - p.EinfMPa) / (Eg - p.EinfMPa) : 1;
+  const region: Region =
+    share >= 0.9 ? 'glassy' : p.EinfMPa > 0 && E <= 2 * p.EinfMPa ? 'rubbery' : p.EinfMPa === 0 && E < 1e-3 * Eg ? 'flow' : 'transition';
+  return { modulusMPa: E, region, glassFraction: share, flowFraction: 1, creepFactor: 1, crystalRemaining: 0 };
+}

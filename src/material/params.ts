@@ -1,0 +1,303 @@
+/**
+ * The material parameter record: one flat list of fields, each with its unit, bounds and meaning. The
+ * same table drives validation, the worksheet parameter block, the CLI's JSON and the docs.
+ */
+import { ParameterError } from '../base/errors.js';
+import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
+
+export type Kind = 'amorphous' | 'semicrystalline' | 'crosslinked';
+export const KINDS: readonly Kind[] = ['amorphous', 'semicrystalline', 'crosslinked'];
+
+/** A complete, validated set of model parameters for one material (units in the field names). */
+export interface MaterialParams {
+  id: string;
+  name: string;
+  kind: Kind;
+  shiftLaw: ShiftLaw;
+  Tg_C: number;
+  Tm_C: number | null;
+  E23_MPa: number | null;
+  Eg_MPa: number | null;
+  plateau_MPa: number;
+  crystallinity: number;
+  crystalContinuity: number;
+  meltSharpness: number;
+  C1: number;
+  C2_K: number;
+  Ea_kJmol: number;
+  tauTg_s: number;
+  beta: number;
+  flowDecades: number;
+  flowBeta: number;
+  creepN: number;
+  creepEa_kJmol: number;
+  density_kgm3: number;
+  Mc_kgmol: number;
+  Tg_low_C: number | null;
+  Tg_high_C: number | null;
+  Tm_low_C: number | null;
+  Tm_high_C: number | null;
+  E23_low_MPa: number | null;
+  E23_high_MPa: number | null;
+}
+
+export type NumericField = {
+  [K in keyof MaterialParams]: MaterialParams[K] extends number | null ? K : never;
+}[keyof MaterialParams];
+
+export interface FieldSpec {
+  readonly key: NumericField;
+  readonly unit: string;
+  readonly min: number;
+  readonly max: number;
+  /** null: the field may be left empty. */
+  readonly optional: boolean;
+  readonly kinds: readonly Kind[];
+  readonly description: string;
+}
+
+const ALL = KINDS;
+const SC: readonly Kind[] = ['semicrystalline'];
+const THERMOPLASTIC: readonly Kind[] = ['amorphous', 'semicrystalline'];
+const XL: readonly Kind[] = ['crosslinked'];
+
+/** Every numeric field, in the order a parameter block lists them. */
+export const NUMERIC_FIELDS: readonly FieldSpec[] = [
+  {
+    key: 'Tg_C',
+    unit: 'degC',
+    min: -150,
+    max: 400,
+    optional: false,
+    kinds: ALL,
+    description: 'glass transition temperature (DSC, about 100 s time scale)',
+  },
+  {
+    key: 'Tm_C',
+    unit: 'degC',
+    min: -100,
+    max: 450,
+    optional: true,
+    kinds: SC,
+    description: 'melting peak temperature; semi-crystalline only',
+  },
+  {
+    key: 'E23_MPa',
+    unit: 'MPa',
+    min: 0.1,
+    max: 20000,
+    optional: true,
+    kinds: ALL,
+    description: 'short-term modulus at 23 degC (datasheet); sets the glassy modulus. Give this or Eg_MPa',
+  },
+  {
+    key: 'Eg_MPa',
+    unit: 'MPa',
+    min: 50,
+    max: 20000,
+    optional: true,
+    kinds: ALL,
+    description: 'unrelaxed glassy modulus, the upper bound. Give this or E23_MPa',
+  },
+  {
+    key: 'plateau_MPa',
+    unit: 'MPa',
+    min: 0.01,
+    max: 50,
+    optional: false,
+    kinds: THERMOPLASTIC,
+    description: 'entanglement (rubbery) plateau of the amorphous phase',
+  },
+  {
+    key: 'crystallinity',
+    unit: 'fraction',
+    min: 0.02,
+    max: 0.95,
+    optional: false,
+    kinds: SC,
+    description: 'crystalline volume fraction at 23 degC',
+  },
+  {
+    key: 'crystalContinuity',
+    unit: 'fraction',
+    min: 0.02,
+    max: 1,
+    optional: false,
+    kinds: SC,
+    description: 'Takayanagi series-branch fraction phi (1 = crystals in parallel); at least the crystallinity',
+  },
+  {
+    key: 'meltSharpness',
+    unit: '-',
+    min: 2,
+    max: 200,
+    optional: false,
+    kinds: SC,
+    description: 'exponent m of the melting law exp(-ln20 (T/Tm)^m) in kelvin: larger melts later and more sharply',
+  },
+  { key: 'C1', unit: '-', min: 1, max: 50, optional: false, kinds: ALL, description: 'WLF C1 with Tg as reference' },
+  { key: 'C2_K', unit: 'K', min: 10, max: 300, optional: false, kinds: ALL, description: 'WLF C2 with Tg as reference' },
+  {
+    key: 'Ea_kJmol',
+    unit: 'kJ/mol',
+    min: 20,
+    max: 2000,
+    optional: false,
+    kinds: ALL,
+    description: 'Arrhenius activation energy of the main shift below Tg',
+  },
+  { key: 'tauTg_s', unit: 's', min: 0.001, max: 1e6, optional: false, kinds: ALL, description: 'glass-transition relaxation time at Tg' },
+  {
+    key: 'beta',
+    unit: '-',
+    min: 0.05,
+    max: 1,
+    optional: false,
+    kinds: ALL,
+    description: 'KWW stretching exponent of the glass transition (smaller = broader)',
+  },
+  {
+    key: 'flowDecades',
+    unit: 'decades',
+    min: 0.5,
+    max: 20,
+    optional: false,
+    kinds: THERMOPLASTIC,
+    description: 'decades of reduced time from the glass transition to terminal flow',
+  },
+  {
+    key: 'flowBeta',
+    unit: '-',
+    min: 0.1,
+    max: 1,
+    optional: false,
+    kinds: THERMOPLASTIC,
+    description: 'stretching exponent of terminal flow',
+  },
+  {
+    key: 'creepN',
+    unit: '-',
+    min: 0,
+    max: 0.3,
+    optional: false,
+    kinds: ALL,
+    description: 'power-law exponent of slow creep of the glass and crystals (per decade of time)',
+  },
+  {
+    key: 'creepEa_kJmol',
+    unit: 'kJ/mol',
+    min: 10,
+    max: 500,
+    optional: false,
+    kinds: ALL,
+    description: 'activation energy of the slow-creep clock (1 s at 23 degC)',
+  },
+  {
+    key: 'density_kgm3',
+    unit: 'kg/m3',
+    min: 500,
+    max: 3000,
+    optional: false,
+    kinds: XL,
+    description: 'density, for the network modulus 3 rho R T / Mc',
+  },
+  { key: 'Mc_kgmol', unit: 'kg/mol', min: 0.05, max: 100, optional: false, kinds: XL, description: 'molar mass between crosslinks' },
+  { key: 'Tg_low_C', unit: 'degC', min: -150, max: 400, optional: true, kinds: ALL, description: 'low end of the Tg range, for the band' },
+  {
+    key: 'Tg_high_C',
+    unit: 'degC',
+    min: -150,
+    max: 400,
+    optional: true,
+    kinds: ALL,
+    description: 'high end of the Tg range, for the band',
+  },
+  { key: 'Tm_low_C', unit: 'degC', min: -100, max: 450, optional: true, kinds: SC, description: 'low end of the Tm range, for the band' },
+  { key: 'Tm_high_C', unit: 'degC', min: -100, max: 450, optional: true, kinds: SC, description: 'high end of the Tm range, for the band' },
+  {
+    key: 'E23_low_MPa',
+    unit: 'MPa',
+    min: 0.1,
+    max: 20000,
+    optional: true,
+    kinds: ALL,
+    description: 'low end of the 23 degC modulus range, for the band',
+  },
+  {
+    key: 'E23_high_MPa',
+    unit: 'MPa',
+    min: 0.1,
+    max: 20000,
+    optional: true,
+    kinds: ALL,
+    description: 'high end of the 23 degC modulus range, for the band',
+  },
+];
+
+export const TEXT_FIELDS = ['id', 'name', 'kind', 'shiftLaw'] as const;
+
+const FIELD_BY_KEY = new Map(NUMERIC_FIELDS.map((f) => [f.key, f]));
+
+/** The spec of one numeric field. */
+export function fieldSpec(key: NumericField): FieldSpec {
+  const spec = FIELD_BY_KEY.get(key);
+  if (!spec) throw new Error(`no field ${key}`);
+  return spec;
+}
+
+/** Every key a parameter record has, in block order: text fields first. */
+export const ALL_KEYS: readonly (keyof MaterialParams)[] = [...TEXT_FIELDS, ...NUMERIC_FIELDS.map((f) => f.key)];
+
+/** Checks every field's type and range and the cross-field rules; throws ParameterError naming the field. */
+export function validateParams(p: MaterialParams): MaterialParams {
+  if (typeof p.id !== 'string' || p.id.trim() === '') throw new ParameterError('id', 'needs a non-empty name for the material');
+  if (typeof p.name !== 'string') throw new ParameterError('name', 'must be text');
+  if (!KINDS.includes(p.kind)) throw new ParameterError('kind', `must be one of ${KINDS.join(', ')}, got '${String(p.kind)}'`, p.kind);
+  if (!SHIFT_LAWS.includes(p.shiftLaw)) {
+    throw new ParameterError('shiftLaw', `must be one of ${SHIFT_LAWS.join(', ')}, got '${String(p.shiftLaw)}'`, p.shiftLaw);
+  }
+  for (const f of NUMERIC_FIELDS) {
+    const v = p[f.key];
+    const used = f.kinds.includes(p.kind);
+    if (v === null) {
+      if (!f.optional && used) throw new ParameterError(f.key, `is required for a ${p.kind} material (${f.description})`);
+      continue;
+    }
+    if (typeof v !== 'number' || !Number.isFinite(v)) throw new ParameterError(f.key, `must be a finite number, got ${String(v)}`, v);
+    if (v < f.min || v > f.max) {
+      throw new ParameterError(f.key, `${v} ${f.unit} is outside ${f.min} to ${f.max} ${f.unit} (${f.description})`, v);
+    }
+  }
+  if ((p.E23_MPa === null) === (p.Eg_MPa === null)) {
+    throw new ParameterError('E23_MPa', 'give exactly one of E23_MPa (datasheet modulus at 23 degC) and Eg_MPa (glassy modulus)');
+  }
+  if (p.kind === 'semicrystalline') {
+    if (p.Tm_C === null) throw new ParameterError('Tm_C', 'is required for a semicrystalline material');
+    if (p.Tm_C < p.Tg_C + 10) {
+      throw new ParameterError('Tm_C', `${p.Tm_C} degC must be at least 10 K above Tg_C (${p.Tg_C} degC); are Tg and Tm swapped?`, p.Tm_C);
+    }
+    if (p.crystalContinuity < p.crystallinity) {
+      throw new ParameterError(
+        'crystalContinuity',
+        `${p.crystalContinuity} must be at least the crystallinity (${p.crystallinity})`,
+        p.crystalContinuity,
+      );
+    }
+  } else if (p.Tm_C !== null) {
+    throw new ParameterError('Tm_C', `is only used for semicrystalline materials; leave it empty for a ${p.kind} one`, p.Tm_C);
+  }
+  checkRange(p, 'Tg_low_C', 'Tg_C', 'Tg_high_C');
+  checkRange(p, 'Tm_low_C', 'Tm_C', 'Tm_high_C');
+  checkRange(p, 'E23_low_MPa', 'E23_MPa', 'E23_high_MPa');
+  return p;
+}
+
+function checkRange(p: MaterialParams, low: NumericField, mid: NumericField, high: NumericField): void {
+  const lo = p[low];
+  const m = p[mid];
+  const hi = p[high];
+  if (lo !== null && m === null) throw new ParameterError(low, `needs ${mid} to be given too`);
+  if (hi !== null && m === null) throw new ParameterError(high, `needs ${mid} to be given too`);
+  if (lo !== null && m !== null && lo > m) throw new ParameterError(low, `${lo} must not exceed ${mid} (${m})`, lo);
+  if (hi !== null && m !== null && hi < m) throw new ParameterError(high, `${hi} must not be below ${mid} (${m})`, hi);
+}
