@@ -6,8 +6,8 @@
 import { mkdirSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
-import type { CellErrorValue, CellValue, Workbook, Worksheet } from 'exceljs';
-import { getFamily, NUMERIC_FIELDS } from '../src/index.js';
+import type { Alignment, CellErrorValue, CellValue, Font, Workbook, Worksheet } from 'exceljs';
+import { getFamily, NUMERIC_FIELDS, VERDICT } from '../src/index.js';
 import { DEMO_CAUTION, type DemoReview } from './review.js';
 import { DEMO_SCENARIO as S } from './scenario.js';
 
@@ -23,16 +23,72 @@ function col(n: number): string {
 
 const NOT_REACHED: CellErrorValue = { error: '#N/A' };
 
+/**
+ * One font family for every cell, bold or not. Arial is on every Excel machine, and LibreOffice maps it
+ * to the metric-compatible Liberation Sans, so column widths hold in both (a cell whose font names no
+ * family falls back to a serif face in LibreOffice's PDF export).
+ */
+const FONT: Partial<Font> = { name: 'Arial', size: 10 };
+const BOLD: Partial<Font> = { ...FONT, bold: true };
+const WRAP: Partial<Alignment> = { wrapText: true, vertical: 'top' };
+
+/** Number formats by quantity (the same in every block). */
+export const FORMATS = {
+  modulus: '#,##0',
+  stress: '0.00',
+  temperature: '0.0',
+  hours: '#,##0" h"',
+  strain: '0.0%',
+  count: '#,##0',
+} as const;
+
 function formula(ws: Worksheet, ref: string, text: string, result: number | string | CellErrorValue, numFmt?: string): void {
   const cell = ws.getCell(ref);
   cell.value = { formula: text, result } as CellValue;
+  cell.font = FONT;
   if (numFmt) cell.numFmt = numFmt;
 }
 
-function put(ws: Worksheet, ref: string, value: string | number, bold = false): void {
+function put(ws: Worksheet, ref: string, value: string | number, bold = false, numFmt?: string): void {
   const cell = ws.getCell(ref);
   cell.value = value;
-  if (bold) cell.font = { bold: true };
+  cell.font = bold ? BOLD : FONT;
+  if (numFmt) cell.numFmt = numFmt;
+}
+
+/** A header cell: bold, wrapped, so that a long header shows whole in a narrow column. */
+function header(ws: Worksheet, ref: string, value: string | number): void {
+  put(ws, ref, value, true);
+  const cell = ws.getCell(ref);
+  cell.alignment = { ...WRAP, horizontal: typeof value === 'number' ? 'right' : 'left' };
+  // Excel and LibreOffice do not grow a row for wrapped text written by a program: give it the lines it needs.
+  const lines = Math.ceil(String(value).length / Math.max(1, 0.8 * ((ws.getColumn(cell.col).width ?? 10) - 1)));
+  const row = ws.getRow(Number(cell.row));
+  row.height = Math.max(row.height ?? 0, 13.5 * lines);
+}
+
+/** A paragraph: merged across the first `cols` columns, wrapped, the row made tall enough for `chars` characters per line. */
+function paragraph(ws: Worksheet, row: number, cols: number, text: string, charsPerLine: number, bold = false): void {
+  if (cols > 1) ws.mergeCells(row, 1, row, cols);
+  const cell = ws.getCell(row, 1);
+  cell.value = text;
+  cell.font = bold ? BOLD : FONT;
+  cell.alignment = WRAP;
+  ws.getRow(row).height = 13.5 * Math.max(1, Math.ceil(text.length / charsPerLine));
+}
+
+/** Page set-up of a printed sheet: A4, fitted to one page wide, a footer naming the sheet and the page. */
+function printable(ws: Worksheet, orientation: 'portrait' | 'landscape', fitToHeight: number): void {
+  ws.pageSetup = {
+    ...ws.pageSetup,
+    paperSize: 9,
+    orientation,
+    fitToPage: true,
+    fitToWidth: 1,
+    fitToHeight,
+    margins: { left: 0.5, right: 0.5, top: 0.6, bottom: 0.6, header: 0.3, footer: 0.3 },
+  };
+  ws.headerFooter.oddFooter = `&L&"Arial"&8Resin Derate demo review (invented scenario): ${ws.name}&R&"Arial"&8page &P of &N`;
 }
 
 /** Where the blocks of the Review sheet sit; every formula is built from these positions. */
@@ -69,96 +125,141 @@ function reviewSheet(wb: Workbook, review: DemoReview): void {
   const temps = `$A$${L.cycleFirstRow}:$A$${L.cycleLastRow}`;
   const hours = `$B$${L.cycleFirstRow}:$B$${L.cycleLastRow}`;
   const { service, required, strain, peak } = L.inputs;
+  const nT = S.temperaturesC.length;
+  const lastCol = 3 + nT;
+  const widths = [27, ...S.temperaturesC.map(() => 10), 15, 15];
+  widths.forEach((w, k) => (ws.getColumn(k + 1).width = w));
+  const charsPerLine = Math.floor(widths.reduce((a, b) => a + b, 0) * 1.05);
 
-  put(ws, 'A1', S.title, true);
-  put(ws, 'A2', S.story);
-  put(
+  paragraph(ws, 1, lastCol, S.title, charsPerLine, true);
+  paragraph(ws, 2, lastCol, S.story, charsPerLine);
+  paragraph(
     ws,
-    'A3',
+    3,
+    lastCol,
     'Invented scenario for the demo; estimates for screening only (see the Cautions sheet). Formulas need the Resin Derate add-in; the values shown were computed by its engine when this file was written.',
+    charsPerLine,
   );
   put(ws, 'A4', 'service time');
   put(ws, 'B4', S.serviceTime);
   put(ws, 'A5', 'required modulus, MPa');
-  put(ws, 'B5', S.requiredModulusMPa);
-  put(ws, 'A6', 'strain held by the latch (fraction)');
-  put(ws, 'B6', S.heldStrain);
+  put(ws, 'B5', S.requiredModulusMPa, false, FORMATS.modulus);
+  put(ws, 'A6', 'strain held by the latch');
+  put(ws, 'B6', S.heldStrain, false, FORMATS.strain);
   put(ws, 'A7', 'peak cycle temperature, degC');
-  formula(ws, 'B7', `MAX(${temps})`, review.peakC);
+  formula(ws, 'B7', `MAX(${temps})`, review.peakC, FORMATS.temperature);
 
   // Derating table: candidates down, service temperatures across.
   const h = L.tableHeaderRow;
   put(ws, `A${h - 1}`, `Relaxation modulus after the service time at constant temperature, MPa`, true);
-  put(ws, `A${h}`, 'resin \\ degC', true);
-  S.temperaturesC.forEach((T, j) => put(ws, `${col(2 + j)}${h}`, T, true));
-  const limitCol = col(2 + S.temperaturesC.length);
-  const verdictCol = col(3 + S.temperaturesC.length);
-  put(ws, `${limitCol}${h}`, `max degC for the required modulus over the service time`, true);
-  put(ws, `${verdictCol}${h}`, 'verdict after the duty cycle', true);
+  header(ws, `A${h}`, 'resin \\ degC');
+  S.temperaturesC.forEach((T, j) => header(ws, `${col(2 + j)}${h}`, T));
+  const limitCol = col(2 + nT);
+  const verdictCol = col(3 + nT);
+  header(ws, `${limitCol}${h}`, 'highest degC at the required modulus');
+  header(ws, `${verdictCol}${h}`, 'verdict after the duty cycle');
   review.rows.forEach((row, i) => {
     const r = L.firstCandidateRow + i;
     const check = review.checks[i];
     if (!check) throw new Error(`demo: no duty check for ${row.id}`);
     put(ws, `A${r}`, row.id);
     row.cells.forEach((c, j) =>
-      formula(ws, `${col(2 + j)}${r}`, `DERATE.MODULUS($A${r},${col(2 + j)}$${h},${service})`, c.modulusMPa, '0'),
+      formula(ws, `${col(2 + j)}${r}`, `DERATE.MODULUS($A${r},${col(2 + j)}$${h},${service})`, c.modulusMPa, FORMATS.modulus),
     );
-    formula(ws, `${limitCol}${r}`, `DERATE.MAXTEMP($A${r},${required},${service})`, check.limitC ?? NOT_REACHED, '0.0');
+    formula(ws, `${limitCol}${r}`, `DERATE.MAXTEMP($A${r},${required},${service})`, check.limitC ?? NOT_REACHED, FORMATS.temperature);
     formula(
       ws,
       `${verdictCol}${r}`,
-      `IF(DERATE.DUTY($A${r},${temps},${hours},${L.cyclesCell},${peak})>=${required},"pass","FAIL")`,
-      check.pass ? 'pass' : 'FAIL',
+      `IF(DERATE.DUTY($A${r},${temps},${hours},${L.cyclesCell},${peak})>=${required},"${VERDICT.pass}","${VERDICT.fail}")`,
+      check.pass ? VERDICT.pass : VERDICT.fail,
     );
   });
 
   // Duty-cycle block: the day's segments, the number of days, and each candidate after them.
   put(ws, `A${L.cycleHeaderRow - 1}`, 'Daily duty cycle (invented)', true);
-  put(ws, `A${L.cycleHeaderRow}`, 'temperature, degC', true);
-  put(ws, `B${L.cycleHeaderRow}`, 'hours per day', true);
+  header(ws, `A${L.cycleHeaderRow}`, 'temperature, degC');
+  header(ws, `B${L.cycleHeaderRow}`, 'hours per day');
   S.cycle.forEach(([T, hrs], k) => {
-    put(ws, `A${L.cycleFirstRow + k}`, T);
-    put(ws, `B${L.cycleFirstRow + k}`, hrs);
+    put(ws, `A${L.cycleFirstRow + k}`, T, false, FORMATS.temperature);
+    put(ws, `B${L.cycleFirstRow + k}`, hrs, false, FORMATS.hours);
   });
   put(ws, `A${L.cycleLastRow + 1}`, 'days (cycles)');
-  put(ws, `B${L.cycleLastRow + 1}`, S.cycles);
+  put(ws, `B${L.cycleLastRow + 1}`, S.cycles, false, FORMATS.count);
   const c = L.checkHeaderRow;
-  ['resin', 'equivalent h at the peak temperature', 'modulus at end, MPa', 'stress held at the strain, MPa', 'verdict'].forEach((t, j) =>
-    put(ws, `${col(1 + j)}${c}`, t, true),
+  ['resin', 'equivalent time at the peak', 'modulus at end, MPa', 'stress held at the strain, MPa', 'verdict'].forEach((t, j) =>
+    header(ws, `${col(1 + j)}${c}`, t),
   );
   review.checks.forEach((k, i) => {
     const r = c + 1 + i;
     put(ws, `A${r}`, k.id);
-    formula(ws, `B${r}`, `DERATE.EQTIME($A${r},${temps},${hours},${peak},${L.cyclesCell})`, k.equivalentH, '#,##0');
-    formula(ws, `C${r}`, `DERATE.DUTY($A${r},${temps},${hours},${L.cyclesCell},${peak})`, k.afterMPa, '0');
-    formula(ws, `D${r}`, `C${r}*${strain}`, k.heldStressMPa, '0.00');
-    formula(ws, `E${r}`, `IF(C${r}>=${required},"pass","FAIL")`, k.pass ? 'pass' : 'FAIL');
+    formula(ws, `B${r}`, `DERATE.EQTIME($A${r},${temps},${hours},${peak},${L.cyclesCell})`, k.equivalentH, FORMATS.hours);
+    formula(ws, `C${r}`, `DERATE.DUTY($A${r},${temps},${hours},${L.cyclesCell},${peak})`, k.afterMPa, FORMATS.modulus);
+    formula(ws, `D${r}`, `C${r}*${strain}`, k.heldStressMPa, FORMATS.stress);
+    formula(ws, `E${r}`, `IF(C${r}>=${required},"${VERDICT.pass}","${VERDICT.fail}")`, k.pass ? VERDICT.pass : VERDICT.fail);
   });
-  ws.getColumn(1).width = 34;
-  for (let j = 2; j <= 3 + S.temperaturesC.length; j++) ws.getColumn(j).width = 14;
+  const lastRow = c + review.checks.length;
+  printable(ws, 'landscape', 1);
+  ws.pageSetup.printArea = `A1:${col(lastCol)}${lastRow}`;
+  ws.pageSetup.printTitlesRow = '1:1';
 }
 
+/** Short labels of the bundled sources, numbered in order of first use. */
+function numberSources(texts: readonly string[]): Map<string, number> {
+  const numbers = new Map<string, number>();
+  for (const t of texts) if (!numbers.has(t)) numbers.set(t, numbers.size + 1);
+  return numbers;
+}
+
+/**
+ * The source of every family number the review uses: one row per field with each candidate's value,
+ * the sources as numbers, and the numbered list of sources below (so the sheet prints on one or two pages).
+ */
 function sourcesSheet(wb: Workbook): void {
   const ws = wb.addWorksheet('Sources');
-  ws.addRow(['Source of every family number used in the Review sheet (from the bundled family table)']).font = { bold: true };
-  ws.addRow(['family', 'field', 'value', 'unit', 'source']).font = { bold: true };
-  for (const id of S.candidates) {
-    const f = getFamily(id);
-    for (const spec of NUMERIC_FIELDS) {
-      const value = f.params[spec.key];
-      const source = f.sources[spec.key];
-      if (value === null || source === undefined) continue;
-      ws.addRow([f.params.id, spec.key, value, spec.unit, source]);
-    }
+  const families = S.candidates.map((id) => getFamily(id));
+  const lastCol = 3 + families.length;
+  const widths = [18, 8, ...families.map(() => 10), 22];
+  widths.forEach((w, k) => (ws.getColumn(k + 1).width = w));
+  const fields = NUMERIC_FIELDS.filter((spec) => families.some((f) => f.params[spec.key] !== null && f.sources[spec.key] !== undefined));
+  const texts = fields.flatMap((spec) => families.map((f) => f.sources[spec.key]).filter((x): x is string => x !== undefined));
+  const numbers = numberSources(texts);
+  paragraph(ws, 1, lastCol, 'Source of every family number used in the Review sheet (from the bundled family table)', 120, true);
+  ['field', 'unit', ...families.map((f) => f.params.id), 'sources (numbered below)'].forEach((t, k) => header(ws, `${col(1 + k)}2`, t));
+  fields.forEach((spec, i) => {
+    const r = 3 + i;
+    put(ws, `A${r}`, spec.key);
+    put(ws, `B${r}`, spec.unit);
+    const refs = new Map<number, string[]>();
+    families.forEach((f, k) => {
+      const v = f.params[spec.key];
+      const src = f.sources[spec.key];
+      if (v === null || src === undefined) {
+        put(ws, `${col(3 + k)}${r}`, '-');
+        return;
+      }
+      put(ws, `${col(3 + k)}${r}`, v, false, Number.isInteger(v) ? '#,##0' : '0.###');
+      const n = numbers.get(src) ?? 0;
+      refs.set(n, [...(refs.get(n) ?? []), f.params.id]);
+    });
+    const all = refs.size === 1;
+    const text = [...refs].map(([n, ids]) => (all ? `[${n}]` : `[${n}] ${ids.join(', ')}`)).join('; ');
+    put(ws, `${col(lastCol)}${r}`, text);
+    ws.getCell(`${col(lastCol)}${r}`).alignment = WRAP;
+  });
+  let r = 3 + fields.length + 1;
+  put(ws, `A${r}`, 'Sources', true);
+  for (const [text, n] of numbers) {
+    r++;
+    paragraph(ws, r, lastCol, `[${n}] ${text}`, 110);
   }
-  ws.getColumn(1).width = 12;
-  ws.getColumn(2).width = 18;
-  ws.getColumn(5).width = 120;
+  printable(ws, 'portrait', 0);
+  ws.pageSetup.printArea = `A1:${col(lastCol)}${r}`;
+  ws.pageSetup.printTitlesRow = '2:2';
 }
 
 function cautionsSheet(wb: Workbook): void {
   const ws = wb.addWorksheet('Cautions');
-  ws.addRow(['Cautions']).font = { bold: true };
+  const rows: string[] = ['Cautions'];
   for (const line of [
     DEMO_CAUTION,
     'The scenario (product, duty cycle, requirement) is invented for this demo; it is not measured data.',
@@ -166,9 +267,12 @@ function cautionsSheet(wb: Workbook): void {
     'HDT from DERATE.HDT is a simulated ISO 75 test; ISO 75-1 says HDT results are not design data.',
     'Values cached in this file were computed by the Resin Derate engine when it was written; the add-in recalculates them.',
   ]) {
-    ws.addRow([line]);
+    rows.push(line);
   }
-  ws.getColumn(1).width = 140;
+  ws.getColumn(1).width = 85;
+  rows.forEach((line, k) => paragraph(ws, k + 1, 1, line, 85, k === 0));
+  printable(ws, 'portrait', 0);
+  ws.pageSetup.printArea = `A1:A${rows.length}`;
 }
 
 /**

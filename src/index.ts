@@ -12,6 +12,7 @@ export * from './answers/band.js';
 export * from './answers/history.js';
 export * from './answers/hdt.js';
 export * from './answers/table.js';
+export * from './answers/verdict.js';
 export * from './answers/stress.js';
 export * from './material/prony.js';
 export * from './numeric/nnls.js';
