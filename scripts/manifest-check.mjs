@@ -1,5 +1,6 @@
-// Offline check of the add-in's XML manifest. No registry package ships the manifest XSD files (the registry's
-// manifest tool validates by posting the file to an online service), so this is not XSD validation. It is:
+// Offline check of the add-in's XML manifest, our own, beside the XSD validation of scripts/office-schemas.mjs
+// (xmllint against the XSD set vendored in vendor/office-schemas/). It gives messages in our words and holds the
+// rules no schema states. It is:
 //   1. a strict, namespace-aware well-formedness parse (saxes);
 //   2. a content model for the subset of the schema this add-in uses: every element under its right parent, in the
 //      schema's order, with its required children and attributes and no unknown ones. Element names, order and

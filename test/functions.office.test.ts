@@ -1,7 +1,10 @@
 /**
  * The Office host with a stand-in for the custom-functions runtime (Office.js cannot load outside
  * Office): every definition is associated under its id, errors become CustomFunctions.Error objects
- * (thrown for a scalar result, in place inside a spill), and Excel's own error objects are read as input.
+ * (thrown for a scalar result, in place inside a spill), and error objects given as input are read, not trusted.
+ * Excel itself does not pass error inputs with our metadata (no allowErrorForDataTypeAny: Microsoft Learn, "Handle
+ * and return errors from your custom function", Errors as custom function inputs; test/schemas.test.ts pins the
+ * metadata), so that input path is a guard, exercised here with the runtime's error shape.
  */
 import { readFileSync } from 'node:fs';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -78,7 +81,9 @@ describe('Office host', () => {
     expect((thrown as FakeError).message).toContain('takes at most 3 arguments');
   });
 
-  it('reads Excel error objects in ranges and keeps #N/A', () => {
+  it('reads error objects in ranges, should a host pass them, and keeps #N/A', () => {
+    // Not what Excel does with dist/functions.json (it does not call the function: see the header); the adapter
+    // must still never turn an error object into a number.
     const rt = fakeRuntime();
     registerWithOffice(rt);
     const eqtime = rt.table.get('EQTIME');

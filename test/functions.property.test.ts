@@ -1,7 +1,8 @@
 /**
  * Property-based tests over every worksheet function, called the way a host calls them: each
  * definition's `invoke` with the host-neutral cell values of functions/core (what the HyperFormula host
- * passes), and the Office adapter (functions/host/office.ts) with Excel-style error objects. The list of
+ * passes), and the Office adapter (functions/host/office.ts) with error objects of the runtime's shape (a guard:
+ * with our metadata Excel passes no error inputs, see functions/README.md). The list of
  * functions comes from the registry (test/support/functions.ts), so a new function is covered without an
  * edit here; its arguments are drawn from their specs' kinds (a new kind fails the first test until it
  * has a generator below).

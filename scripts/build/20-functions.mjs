@@ -1,6 +1,7 @@
 // The worksheet functions for Excel: metadata generated from the JSDoc tags (dist/functions.json) and
 // the browser bundle that associates every function (dist/functions.js). Fails on any metadata error,
-// on a function or argument without a description, and over the size budget. Modules marked
+// on a function or argument without a description, on metadata that Microsoft's JSON schema, the documented
+// limits or our allow-list refuse (scripts/office-schemas.mjs), and over the size budget. Modules marked
 // `// @load on-first-call` (the fitting functions: least squares, ml-matrix, the creep interconversion)
 // are bundled apart into dist/fn-chunks/ and fetched by import() on the first call of one of them; the
 // budget applies to the start-up script.
@@ -9,6 +10,7 @@ import { generateCustomFunctionsMetadata } from 'custom-functions-metadata';
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { gzipSync } from 'node:zlib';
 import { functionFiles, loadsOnFirstCall } from '../functions-files.mjs';
+import { metadataProblems, withoutGeneratorDefaults } from '../office-schemas.mjs';
 
 /** Size budget of the functions script (decimal kilobytes). */
 export const BUDGET = { minifiedKB: 300, gzipKB: 90 };
@@ -17,11 +19,14 @@ export async function functionsMetadata(files = functionFiles()) {
   const result = await generateCustomFunctionsMetadata(files);
   const problems = [...result.errors];
   if (!result.metadataJson) problems.push('no custom functions found in ' + files.join(', '));
-  const metadata = result.metadataJson ? JSON.parse(result.metadataJson) : { functions: [] };
+  // The generator always adds allowCustomDataForDataTypeAny: true, which makes Excel pass data-type cells as
+  // objects; our parsers refuse those, so it goes (Microsoft Learn, "Custom functions and data types").
+  const metadata = withoutGeneratorDefaults(result.metadataJson ? JSON.parse(result.metadataJson) : { functions: [] });
   for (const f of metadata.functions) {
     if (!f.description) problems.push(`${f.id}: no description`);
     for (const p of f.parameters) if (!p.description) problems.push(`${f.id}(${p.name}): no description`);
   }
+  if (problems.length === 0) problems.push(...metadataProblems(metadata));
   if (problems.length > 0) throw new Error(`functions metadata:\n  ${problems.join('\n  ')}`);
   return { metadata, associate: result.associate };
 }
