@@ -23,9 +23,12 @@ export const excelRun: ExcelRun = (batch) => Excel.run(batch);
 
 type Matrix = (string | number | boolean)[][];
 
-/** A constant that Excel would read as a formula is written as text. */
+/**
+ * A constant that Excel would read as a formula is written as text: Excel reads a value starting with "+",
+ * "-" or "=" as a formula (Microsoft Learn, "Excel.Range class", values), and "@" as an implicit intersection.
+ */
 function constant(v: CellValue): string | number | boolean {
-  return typeof v === 'string' && /^[=+@]/.test(v) ? `'${v}` : v;
+  return typeof v === 'string' && /^[=+\-@]/.test(v) ? `'${v}` : v;
 }
 
 export class OfficeSheet implements SheetPort {
