@@ -1,7 +1,7 @@
 /// <reference types="office-js" />
 /**
  * The Office adapter of the sheet port: each operation is one Excel.run batch over ranges and charts.
- * The batch runner is injected, so tests drive this code against a recorded-call fake of the Excel API.
+ * The batch runner is injected, so tests drive this code through Microsoft's Excel client with a stub host.
  * Only string literals of the Excel enums are used, so no Excel global is needed until run() is called.
  */
 import { boxAddress, cellAddress, parseRef, type Cell } from './a1.js';
@@ -23,9 +23,12 @@ export const excelRun: ExcelRun = (batch) => Excel.run(batch);
 
 type Matrix = (string | number | boolean)[][];
 
-/** A constant that Excel would read as a formula is written as text. */
+/**
+ * A constant that Excel would read as a formula is written as text: Excel reads a value starting with "+",
+ * "-" or "=" as a formula (Microsoft Learn, "Excel.Range class", values), and "@" as an implicit intersection.
+ */
 function constant(v: CellValue): string | number | boolean {
-  return typeof v === 'string' && /^[=+@]/.test(v) ? `'${v}` : v;
+  return typeof v === 'string' && /^[=+\-@]/.test(v) ? `'${v}` : v;
 }
 
 export class OfficeSheet implements SheetPort {

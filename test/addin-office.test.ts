@@ -1,15 +1,19 @@
 /**
- * The Office adapter against a recorded-call fake of the Excel JavaScript API (test/office-fake.ts):
- * the calls it makes, how many batches, and that the safe writer keeps its promises through it.
+ * The Office adapter through Microsoft's real Excel JavaScript client (@microsoft/office-js 1.1.110, the
+ * bundle Excel on the web loads), with only the transport stubbed: test/support/excel-host.ts answers the
+ * JSON requests the client sends on context.sync() from an in-memory workbook. Object paths, load/sync,
+ * property and method serialisation, _KeepReference tracking, result parsing, null objects, event
+ * registration and error objects are the client's own code.
  */
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { getFamily } from '../src/index.js';
 import { blockRows, familyBlockPlan } from '../addin/families-job.js';
 import { OfficeSheet } from '../addin/office-sheet.js';
 import { MODULUS_NUMBER_FORMAT } from '../addin/port.js';
 import { reviewPlan, type ReviewInput } from '../addin/review.js';
 import { commit, undo } from '../addin/writer.js';
-import { FakeExcel } from './office-fake.js';
+import { ExcelHost } from './support/excel-host.js';
+import { loadOfficeJs, type OfficeJs } from './support/office-js.js';
 
 const REVIEW: ReviewInput = {
   candidates: [
@@ -22,131 +26,248 @@ const REVIEW: ReviewInput = {
   requiredMPa: 800,
 };
 
-function setup(names = ['Sheet1']): { excel: FakeExcel; port: OfficeSheet } {
-  const excel = new FakeExcel(names);
-  return { excel, port: new OfficeSheet(excel.run) };
+let client: OfficeJs;
+beforeAll(() => {
+  client = loadOfficeJs();
+});
+
+function setup(names = ['Sheet1']): { host: ExcelHost; port: OfficeSheet } {
+  const host = new ExcelHost(client, names);
+  return { host, port: new OfficeSheet(host.run) };
 }
 
-describe('Office adapter', () => {
-  it('reads the selection with its sheet, quoted names included', async () => {
-    const { excel, port } = setup(['Sheet1', 'Q3 review']);
-    excel.selection = "'Q3 review'!C4:D9";
+/** Names of the method calls and property sets ("set X") of one sync's request, as the client serialised it. */
+function members(host: ExcelHost, sync: number): string[] {
+  const r = host.syncs.at(sync);
+  if (!r) throw new Error(`no request ${sync}`);
+  return r.Actions.filter((a) => (a.ActionType === 3 || a.ActionType === 4) && a.Name !== '_KeepReference').map(
+    (a) => `${a.ActionType === 4 ? 'set ' : ''}${a.Name}`,
+  );
+}
+
+const chartSpec = (sheet = 'Sheet1') => {
+  const spec = reviewPlan(REVIEW).build(sheet, { row: 0, col: 0 }).chart;
+  if (!spec) throw new Error('the review plan has no chart');
+  return spec;
+};
+
+describe('Office adapter through the real Excel client', () => {
+  it('reads the selection with its sheet, quoted names included, in one request', async () => {
+    const { host, port } = setup(['Sheet1', 'Q3 review']);
+    host.select('Q3 review', 'C4:D9');
     await expect(port.selection()).resolves.toEqual({ sheet: 'Q3 review', box: { top: 3, left: 2, bottom: 8, right: 3 } });
-    expect(excel.calls).toEqual(['run', 'selection.load(address)', 'sync']);
+    // Excel quotes a sheet name with a space in an address (Microsoft Learn, "Excel.Range class", address: "Sheet1!A1:B4"; quoting from memory).
+    host.select('Sheet1', 'B2');
+    await expect(port.selection()).resolves.toEqual({ sheet: 'Sheet1', box: { top: 1, left: 1, bottom: 1, right: 1 } });
+    expect(host.syncs).toHaveLength(2);
+    expect(Object.values(host.syncs[0]?.ObjectPaths ?? {}).map((p) => p.Name)).toContain('GetSelectedRange');
   });
 
-  it('reports selection changes through the workbook event', async () => {
-    const { excel, port } = setup();
+  it('calls the listener when the user selects other cells (Workbook.onSelectionChanged through the client)', async () => {
+    const { host, port } = setup();
     let seen = 0;
     await port.watchSelection(() => seen++);
-    expect(excel.calls).toContain('workbook.onSelectionChanged.add()');
-    await excel.select('Sheet1!B2');
-    await excel.select('Sheet1!C3');
+    host.select('Sheet1', 'B2');
+    host.select('Sheet1', 'C3');
+    await new Promise((r) => setTimeout(r, 0));
     expect(seen).toBe(2);
     await expect(port.selection()).resolves.toMatchObject({ box: { top: 2, left: 2 } });
   });
 
-  it('reads values and formulas only after a sync', async () => {
-    const { excel, port } = setup();
-    excel.put('Sheet1', 'B2', 7);
+  it('lists the sheets and reads values and formulas, empty cells as ""', async () => {
+    const { host, port } = setup(['Sheet1', 'Data']);
+    host.put('Sheet1', 'B2', 7);
+    host.put('Sheet1', 'A2', '=B2*2');
+    await expect(port.sheetNames()).resolves.toEqual(['Sheet1', 'Data']);
     const got = await port.read({ sheet: 'Sheet1', box: { top: 0, left: 0, bottom: 1, right: 1 } });
+    expect(got.formulas).toEqual([
+      ['', ''],
+      ['=B2*2', 7],
+    ]);
+    // The host does not calculate: a formula shows the text Excel gives an unknown name.
     expect(got.values).toEqual([
       ['', ''],
-      ['', 7],
+      ['#NAME?', 7],
     ]);
   });
 
-  it('writes a block in one batch: formulas and number formats together, after reading the old formats', async () => {
-    const { excel, port } = setup();
+  it('refuses a sheet that does not exist with the client error ItemNotFound', async () => {
+    const { port } = setup();
+    // Microsoft Learn, "Error handling with the application-specific JavaScript APIs": errors carry a code from Excel.ErrorCodes.
+    await expect(port.read({ sheet: 'Nope', box: { top: 0, left: 0, bottom: 0, right: 0 } })).rejects.toMatchObject({
+      code: 'ItemNotFound',
+      name: 'RichApi.Error',
+    });
+  });
+
+  it('writes a block in two requests: the old number formats, then formulas and formats together', async () => {
+    const { host, port } = setup();
     const receipt = await port.write('Sheet1', { row: 1, col: 1 }, [
       [{ value: 'E_r' }, { value: 12.5, formula: '=DERATE.MODULUS("PC",80,"1000 h")', format: 'modulus' }],
       [{ value: '=not a formula' }, { value: 3 }],
     ]);
-    expect(receipt.box).toEqual({ top: 1, left: 1, bottom: 2, right: 2 });
-    expect(excel.calls.filter((c) => c === 'sync')).toHaveLength(2);
-    const writes = excel.calls.slice(excel.calls.lastIndexOf('sync', excel.calls.length - 2) + 1);
-    expect(writes[0]).toBe('range(Sheet1!B2:C3).formulas = [["E_r","=DERATE.MODULUS(\\"PC\\",80,\\"1000 h\\")"],["\'=not a formula",3]]');
-    expect(writes[1]).toBe(`range(Sheet1!B2:C3).numberFormat = [["General","${MODULUS_NUMBER_FORMAT}"],["General","General"]]`);
-    expect(writes[2]).toBe('sync');
-    expect(excel.at('Sheet1', 'C2')).toMatchObject({ formula: '=DERATE.MODULUS("PC",80,"1000 h")', format: MODULUS_NUMBER_FORMAT });
-    expect(excel.at('Sheet1', 'B3')?.value).toBe('=not a formula');
+    expect(receipt).toEqual({
+      sheet: 'Sheet1',
+      box: { top: 1, left: 1, bottom: 2, right: 2 },
+      previousFormats: [
+        ['General', 'General'],
+        ['General', 'General'],
+      ],
+    });
+    expect(host.syncs).toHaveLength(2);
+    expect(members(host, 1).filter((m) => m.startsWith('set '))).toEqual(['set Formulas', 'set NumberFormat']);
+    expect(host.at('Sheet1', 'C2')).toMatchObject({ formula: '=DERATE.MODULUS("PC",80,"1000 h")', format: MODULUS_NUMBER_FORMAT });
+    expect(host.at('Sheet1', 'B3')?.value).toBe('=not a formula');
+    expect(host.references.size).toBe(0); // Excel.run released every range it kept
+  });
+
+  it('writes text that starts with a sign as text, not as a formula', async () => {
+    const { port } = setup();
+    // Microsoft Learn, "Excel.Range class", values: a value starting with "+", "-" or "=" is read as a formula.
+    const texts = ['-40 degC is outside the data', '+ margin', '@ risk', '=A1'];
+    await port.write('Sheet1', { row: 0, col: 0 }, [texts.map((value) => ({ value }))]);
+    const got = await port.read({ sheet: 'Sheet1', box: { top: 0, left: 0, bottom: 0, right: 3 } });
+    expect(got.values).toEqual([texts]);
   });
 
   it('clears contents and puts the old number formats back', async () => {
-    const { excel, port } = setup();
+    const { host, port } = setup();
     const receipt = await port.write('Sheet1', { row: 0, col: 0 }, [[{ value: 5, formula: '=2+3', format: 'modulus' }]]);
     await port.clear(receipt);
-    expect(excel.at('Sheet1', 'A1')).toBeUndefined();
-    expect(excel.calls).toContain('range(Sheet1!A1).clear(Contents)');
+    expect(host.at('Sheet1', 'A1')).toBeUndefined();
+    expect(members(host, -1)).toEqual(['Clear', 'set NumberFormat']);
+    await expect(port.sheetInUse('Sheet1')).resolves.toBe(false);
   });
 
-  it('builds an XY chart with one named series per row, a dashed reference, and a log value axis', async () => {
-    const { excel, port } = setup();
-    const plan = reviewPlan(REVIEW);
-    const spec = plan.build('Sheet1', { row: 0, col: 0 }).chart;
-    if (!spec) throw new Error('no chart');
+  it('adds, activates, reports in use and removes a sheet', async () => {
+    const { host, port } = setup();
+    await port.addSheet('Review 1');
+    expect(host.sheets.map((s) => s.name)).toEqual(['Sheet1', 'Review 1']);
+    expect(host.active).toBe('Review 1');
+    await expect(port.addSheet('review 1')).rejects.toMatchObject({ code: 'ItemAlreadyExists' });
+    await expect(port.sheetInUse('Review 1')).resolves.toBe(false);
+    host.put('Review 1', 'D4', 'x');
+    await expect(port.sheetInUse('Review 1')).resolves.toBe(true);
+    await port.removeSheet('Review 1');
+    expect(host.sheets.map((s) => s.name)).toEqual(['Sheet1']);
+  });
+
+  it('builds an XY chart in one request: a named series per row, a dashed reference, a log value axis', async () => {
+    const { host, port } = setup();
+    const spec = chartSpec();
     await port.addChart(spec);
-    const [chart] = excel.sheet('Sheet1').charts;
-    expect(chart?.type).toBe('XYScatterLines');
-    expect(chart?.seriesBy).toBe('Rows');
-    expect(chart?.name).toBe('Resin Derate chart A1');
+    expect(host.syncs).toHaveLength(1);
+    const [chart] = host.sheet('Sheet1').charts;
+    expect(chart).toMatchObject({ type: 'XYScatterLines', seriesBy: 'Rows', name: 'Resin Derate chart A1', legend: 'Bottom' });
     expect(chart?.series.map((s) => [s.name, s.x, s.y])).toEqual([
       ['PC', 'Sheet1!B6:D6', 'Sheet1!B7:D7'],
       ['POM', 'Sheet1!B6:D6', 'Sheet1!B8:D8'],
       ['PBT', 'Sheet1!B6:D6', 'Sheet1!B9:D9'],
       ['Required 800 MPa', 'Sheet1!B6:D6', 'Sheet1!B10:D10'],
     ]);
-    expect(chart?.series[3]?.lineStyle).toBe('Dash');
-    expect(chart?.series[0]?.lineStyle).toBe('Continuous');
-    expect(chart?.valueAxis).toMatchObject({ scaleType: 'Logarithmic', logBase: 10, minimum: spec.yMin, title: 'E_r, MPa (log scale)' });
+    expect(chart?.series.map((s) => s.lineStyle)).toEqual(['Continuous', 'Continuous', 'Continuous', 'Dash']);
+    expect(chart?.series[3]?.markerStyle).toBe('None');
+    expect(chart?.valueAxis).toEqual({ scaleType: 'Logarithmic', logBase: 10, minimum: spec.yMin, title: 'E_r, MPa (log scale)' });
     expect(chart?.categoryAxis.title).toBe('Temperature, degC');
     expect(chart?.position).toEqual(['H1', 'O18']);
-    expect(excel.calls.filter((c) => c === 'run')).toHaveLength(1);
+    await port.removeChart('Sheet1', spec.name);
+    expect(host.sheet('Sheet1').charts).toEqual([]);
+    await expect(port.removeChart('Sheet1', spec.name)).rejects.toThrow(/no chart named/);
   });
 
-  it('removes a half-made chart when its batch fails', async () => {
-    const { excel, port } = setup();
-    const spec = reviewPlan(REVIEW).build('Sheet1', { row: 0, col: 0 }).chart;
-    if (!spec) throw new Error('no chart');
-    excel.failOn = 'series.setXAxisValues';
-    await expect(port.addChart(spec)).rejects.toThrow(/GeneralException/);
-    // charts.add and chart.name ran before the failure, as in Excel; the adapter deleted the chart again.
-    expect(excel.calls).toContain('Sheet1.charts[Resin Derate chart A1].delete()');
-    expect(excel.sheet('Sheet1').charts).toHaveLength(0);
+  it('removes a half-made chart when its request fails part-way', async () => {
+    const { host, port } = setup();
+    host.failOn = 'ChartSeries.SetXAxisValues';
+    await expect(port.addChart(chartSpec())).rejects.toMatchObject({ code: 'GeneralException' });
+    // charts.add and chart.name ran before the failing action; the adapter deleted the chart in a new batch.
+    expect(host.syncs.length).toBeGreaterThanOrEqual(2);
+    expect(members(host, -1)).toEqual(['Delete']);
+    expect(host.sheet('Sheet1').charts).toHaveLength(0);
   });
 
   it('keeps the user data through the safe writer: occupied target, new sheet, undo', async () => {
-    const { excel, port } = setup();
-    excel.put('Sheet1', 'A3', 'my note');
+    const { host, port } = setup();
+    host.put('Sheet1', 'A3', 'my note');
     await expect(commit(port, reviewPlan(REVIEW), { sheet: 'Sheet1', topLeft: { row: 0, col: 0 } })).rejects.toThrow(/not empty/);
-    expect(excel.sheet('Sheet1').cells.size).toBe(1);
+    expect(host.sheet('Sheet1').cells.size).toBe(1);
     const rec = await commit(port, reviewPlan(REVIEW), { newSheet: 'Review 1' });
-    expect(excel.sheets.map((s) => s.name)).toEqual(['Sheet1', 'Review 1']);
-    expect(excel.at('Review 1', 'B7')?.formula).toBe('=DERATE.MODULUS($A7,B$6,$B$3)');
-    expect(excel.sheet('Review 1').charts).toHaveLength(1);
+    expect(host.sheets.map((s) => s.name)).toEqual(['Sheet1', 'Review 1']);
+    expect(host.at('Review 1', 'B7')?.formula).toBe('=DERATE.MODULUS($A7,B$6,$B$3)');
+    expect(host.sheet('Review 1').charts).toHaveLength(1);
     expect(await undo(port, rec)).toEqual({ status: 'done' });
-    expect(excel.sheets.map((s) => s.name)).toEqual(['Sheet1']);
-    expect(excel.at('Sheet1', 'A3')?.value).toBe('my note');
+    expect(host.sheets.map((s) => s.name)).toEqual(['Sheet1']);
+    expect(host.at('Sheet1', 'A3')?.value).toBe('my note');
+    expect(host.references.size).toBe(0);
+  });
+
+  it('asks before undoing a write whose cells the user has edited since', async () => {
+    const { host, port } = setup();
+    const rec = await commit(port, reviewPlan(REVIEW), { sheet: 'Sheet1', topLeft: { row: 0, col: 0 } });
+    host.put('Sheet1', 'B7', 1234);
+    await expect(undo(port, rec)).resolves.toMatchObject({ status: 'changed', cells: 1 });
+    expect(host.sheet('Sheet1').charts).toHaveLength(1);
+    await expect(undo(port, rec, true)).resolves.toEqual({ status: 'done' });
+    expect(host.sheet('Sheet1').cells.size).toBe(0);
+    expect(host.sheet('Sheet1').charts).toHaveLength(0);
   });
 
   it('takes a write back when its chart fails, leaving the target empty', async () => {
-    const { excel, port } = setup();
-    excel.failOn = 'charts.add';
-    await expect(commit(port, reviewPlan(REVIEW), { sheet: 'Sheet1', topLeft: { row: 4, col: 2 } })).rejects.toThrow(/GeneralException/);
-    const left = [...excel.sheet('Sheet1').cells.values()].filter((c) => c.value !== '' || c.format !== 'General');
-    expect(left).toEqual([]);
+    const { host, port } = setup();
+    host.failOn = 'ChartCollection.Add';
+    await expect(commit(port, reviewPlan(REVIEW), { sheet: 'Sheet1', topLeft: { row: 4, col: 2 } })).rejects.toMatchObject({
+      code: 'GeneralException',
+    });
+    expect([...host.sheet('Sheet1').cells.values()]).toEqual([]);
+    expect(host.sheet('Sheet1').charts).toEqual([]);
   });
 
   it('writes a family block that reads back the same through the adapter', async () => {
-    const { excel, port } = setup();
+    const { host, port } = setup();
     const f = getFamily('PA66-cond');
     await commit(port, familyBlockPlan(f), { sheet: 'Sheet1', topLeft: { row: 0, col: 5 } });
     const rows = blockRows(f);
-    expect(excel.at('Sheet1', 'F1')?.value).toBe('field');
-    expect(excel.at('Sheet1', 'F2')?.value).toBe('id');
-    expect(excel.at('Sheet1', 'G2')?.value).toBe('PA66-cond');
-    expect(excel.at('Sheet1', 'H6')?.value).toBe('degC');
-    expect(excel.at('Sheet1', `F${rows.length}`)?.value).toBe(rows[rows.length - 1]?.[0]);
-    expect(excel.at('Sheet1', `F${rows.length + 1}`)).toBeUndefined();
+    expect(host.at('Sheet1', 'F1')?.value).toBe('field');
+    expect(host.at('Sheet1', 'G2')?.value).toBe('PA66-cond');
+    expect(host.at('Sheet1', 'H6')?.value).toBe('degC');
+    const back = await port.read({ sheet: 'Sheet1', box: { top: 1, left: 5, bottom: rows.length - 1, right: 5 } });
+    expect(back.values.map((r) => r[0])).toEqual(rows.slice(1).map((r) => r[0]));
+    expect(host.at('Sheet1', `F${rows.length + 1}`)).toBeUndefined();
+  });
+});
+
+describe('Excel API requirement sets the adapter needs', () => {
+  async function everything(port: OfficeSheet): Promise<void> {
+    await port.watchSelection(() => undefined);
+    await port.selection();
+    const rec = await commit(port, reviewPlan(REVIEW), { newSheet: 'Review 1' });
+    await undo(port, rec);
+  }
+
+  it('runs every operation on a host of ExcelApi 1.7', async () => {
+    const host = new ExcelHost(client, ['Sheet1'], { excelApi: '1.7' });
+    await expect(everything(new OfficeSheet(host.run))).resolves.toBeUndefined();
+  });
+
+  it('fails on a host of ExcelApi 1.6, and the writer takes its sheet back', async () => {
+    // @types/office-js 1.0.612 (Microsoft's API reference): ChartSeriesCollection.add, ChartSeries.setXAxisValues,
+    // ChartAxis.scaleType and logBase are [Api set: ExcelApi 1.7].
+    const host = new ExcelHost(client, ['Sheet1'], { excelApi: '1.6' });
+    await expect(everything(new OfficeSheet(host.run))).rejects.toMatchObject({
+      code: 'ApiNotFound',
+      message: expect.stringMatching(/1\.7/),
+    });
+    expect(host.sheets.map((s) => s.name)).toEqual(['Sheet1']);
+    expect(host.sheet('Sheet1').charts).toEqual([]);
+  });
+
+  it('reads and writes cells on a host of ExcelApi 1.4 (charts aside)', async () => {
+    const host = new ExcelHost(client, ['Sheet1'], { excelApi: '1.4' });
+    const port = new OfficeSheet(host.run);
+    const rec = await commit(port, familyBlockPlan(getFamily('PC')), { sheet: 'Sheet1', topLeft: { row: 0, col: 0 } });
+    await expect(undo(port, rec)).resolves.toEqual({ status: 'done' });
+    // Worksheet.getUsedRangeOrNullObject and ChartCollection.getCount are ExcelApi 1.4 (same source).
+    await expect(new OfficeSheet(new ExcelHost(client, ['Sheet1'], { excelApi: '1.3' }).run).sheetInUse('Sheet1')).rejects.toMatchObject({
+      code: 'ApiNotFound',
+    });
   });
 });
