@@ -62,10 +62,15 @@ function meta(id: string): MetaFunction {
   return f;
 }
 
-/** A call with the flags the metadata implies. */
+/** A call with the flags the metadata implies, and a calling cell only if the metadata asks for one. */
 function call(id: string, args: readonly unknown[], flags?: number): Call {
   const fn = meta(id);
-  return { id, values: wireArgs(fn, args), flags: flags ?? metadataFlags(metadata, fn) };
+  return {
+    id,
+    values: wireArgs(fn, args),
+    flags: flags ?? metadataFlags(metadata, fn),
+    address: fn.options?.requiresAddress ? 'Sheet1!B2' : null,
+  };
 }
 
 const expectedMemo = new Map<string, Answer>();
