@@ -25,7 +25,7 @@ import type { ArgKind, ArgSpec } from '../functions/core/args.js';
 import { foreignError, SheetError } from '../functions/core/cells.js';
 import { definition, type ArgShape, type FunctionDef } from '../functions/core/define.js';
 import { officeFunction, type CustomFunctionsRuntime } from '../functions/host/office.js';
-import { FakeError, fakeRuntime } from './support/office-runtime.js';
+import { excelArgs, FakeError, fakeRuntime } from './support/office-runtime.js';
 import { loadsOnFirstCall } from '../scripts/functions-files.mjs';
 import { compileMaterial, getFamily } from '../src/index.js';
 import {
@@ -320,7 +320,8 @@ describe('every worksheet function, arbitrary input', () => {
         fc.property(callArgs(def, makeError, 0.5), (args) => {
           let out: unknown;
           try {
-            out = fn(...args);
+            // As Excel's runtime calls it: the worksheet values, then the Invocation object.
+            out = fn(...excelArgs(def.id, args));
           } catch (e) {
             expect(e, `DERATE.${def.id} threw something else`).toBeInstanceOf(FakeError);
             const err = e as FakeError;
