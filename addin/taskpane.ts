@@ -7,21 +7,21 @@
 import type { CalibrationResult } from '../src/fit/calibrate.js';
 import { InputError, ParameterError, UnknownFamilyError } from '../src/base/errors.js';
 import { FAMILIES, getFamily } from '../src/material/families.js';
-import { parseRef, qualified, type Box, type Cell } from './a1.js';
+import { parseRef, qualified, type Box, type Cell } from './sheet/a1.js';
 import {
   CALIBRATION_FIELD_NAMES,
   QUALITY_TEXT,
   readCalibration,
   type CalibrationFields,
   type CalibrationRequest,
-} from './calibrate-form.js';
-import { byId, h } from './dom.js';
-import { familyBlockPlan, searchFamilies, summarize } from './families-job.js';
-import { MemoryWorkbook } from './memory-sheet.js';
-import { MemoryView } from './memory-view.js';
-import { CALIBRATION_NOTE, CAUTION } from './notes.js';
-import { OfficeSheet } from './office-sheet.js';
-import { formatModulus, type SheetPort, type SheetRange } from './port.js';
+} from './jobs/calibrate/request.js';
+import { byId, h } from './shell/dom.js';
+import { familyBlockPlan, searchFamilies, summarize } from './jobs/lookup/plan.js';
+import { MemoryWorkbook } from './sheet/memory-sheet.js';
+import { MemoryView } from './sheet/memory-view.js';
+import { CALIBRATION_NOTE, CAUTION } from './jobs/notes.js';
+import { OfficeSheet } from './sheet/office-sheet.js';
+import { formatModulus, type SheetPort, type SheetRange } from './sheet/port.js';
 import {
   checkCycle,
   paramsFromBlock,
@@ -34,8 +34,8 @@ import {
   type CycleStep,
   type Load,
   type ReviewInput,
-} from './review.js';
-import { checkTarget, commit, freeSheetName, undo, type Plan, type WriteRecord } from './writer.js';
+} from './jobs/review/plan.js';
+import { checkTarget, commit, freeSheetName, undo, type Plan, type WriteRecord } from './shell/writer.js';
 
 type CandidateEntry = { kind: 'family'; id: string } | { kind: 'block'; ref: string };
 
@@ -711,12 +711,12 @@ function num(x: number | null, unit: string): (string | HTMLElement)[] {
   return [`${Number(x.toPrecision(4))} `, h('span', { class: 'unit' }, unit)];
 }
 
-type CalibrateJob = typeof import('./calibrate-job.js');
+type CalibrateJob = typeof import('./jobs/calibrate/plan.js');
 let calibrateJob: Promise<CalibrateJob> | null = null;
 
 /** The calibration code (the engine's least-squares fit and the block layout), fetched on first use as its own chunk. */
 function loadCalibrateJob(): Promise<CalibrateJob> {
-  calibrateJob ??= import('./calibrate-job.js').catch((e: unknown) => {
+  calibrateJob ??= import('./jobs/calibrate/plan.js').catch((e: unknown) => {
     calibrateJob = null;
     throw e;
   });

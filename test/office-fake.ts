@@ -5,7 +5,7 @@
  * properties can be read only after a sync, and a failing operation stops the rest of its batch (what ran
  * before it stays, as in Excel). Every call is recorded in `calls` for the tests to check.
  */
-import { boxAddress, parseRef, type Box } from '../addin/a1.js';
+import { boxAddress, parseRef, type Box } from '../addin/sheet/a1.js';
 
 type Value = string | number | boolean;
 

@@ -3,7 +3,7 @@
  * bar, sheet tabs, and the charts the pane added (drawn with chart.js, loaded only here).
  */
 import { boxAddress, cellAddress, columnName, type Box } from './a1.js';
-import { byId, h } from './dom.js';
+import { byId, h } from '../shell/dom.js';
 import type { MemoryWorkbook, StoredCell } from './memory-sheet.js';
 import { formatModulus, type ChartSpec } from './port.js';
 
