@@ -9,7 +9,7 @@ import { setUpLookup } from './jobs/lookup/pane.js';
 import { CAUTION } from './jobs/notes.js';
 import { setUpReview } from './jobs/review/pane.js';
 import { MemoryWorkbook } from './sheet/memory-sheet.js';
-import { MemoryView } from './sheet/memory-view.js';
+import { MemoryView } from './preview/memory-view.js';
 import { OfficeSheet } from './sheet/office-sheet.js';
 import type { SheetPort } from './sheet/port.js';
 import { byId } from './shell/dom.js';
