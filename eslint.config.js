@@ -51,4 +51,39 @@ export default tseslint.config(
       'no-restricted-imports': ['error', { patterns: [{ group: ['**/functions/**', '**/addin/**'], message: 'cli/ imports only src/' }] }],
     },
   },
+  // The pane (addin/README.md): the sheet port and its adapters know nothing of the page; the shell knows no job;
+  // what a job computes and writes (plan, request, notes) runs without a page, so Node tests can check it.
+  {
+    files: ['addin/sheet/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['**/shell/**', '**/jobs/**', '**/preview/**'], message: 'addin/sheet/ sits below the page' }] },
+      ],
+      'no-restricted-globals': ['error', 'document', 'window'],
+    },
+  },
+  {
+    files: ['addin/shell/**/*.ts'],
+    rules: {
+      'no-restricted-imports': ['error', { patterns: [{ group: ['**/jobs/**', '**/preview/**'], message: 'the shell knows no job' }] }],
+    },
+  },
+  {
+    files: ['addin/jobs/*/plan.ts', 'addin/jobs/*/request.ts', 'addin/jobs/notes.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/pane.js', '**/shell/dom.js', '**/shell/shell.js', '**/shell/messages.js', '**/shell/ask.js', '**/shell/tabs.js'],
+              message: 'a job plan runs without a page',
+            },
+          ],
+        },
+      ],
+      'no-restricted-globals': ['error', 'document', 'window'],
+    },
+  },
 );

@@ -13,13 +13,13 @@ import {
   TEXT_FIELDS,
   type CalibrationResult,
 } from '../src/index.js';
-import { readCalibration, type CalibrationFields, type CalibrationRequest } from '../addin/calibrate-form.js';
-import { calibratedBlockBox, calibrationLayout, calibrationPlan, runCalibration } from '../addin/calibrate-job.js';
-import { paramsBlockRows } from '../addin/families-job.js';
-import { MemoryWorkbook } from '../addin/memory-sheet.js';
-import { CALIBRATION_NOTE, CAUTION } from '../addin/notes.js';
-import { paramsFromBlock } from '../addin/review.js';
-import { commit, OccupiedError, undo } from '../addin/writer.js';
+import { readCalibration, type CalibrationFields, type CalibrationRequest } from '../addin/jobs/calibrate/request.js';
+import { calibratedBlockBox, calibrationLayout, calibrationPlan, runCalibration } from '../addin/jobs/calibrate/plan.js';
+import { paramsBlockRows } from '../addin/jobs/lookup/plan.js';
+import { MemoryWorkbook } from '../addin/sheet/memory-sheet.js';
+import { CALIBRATION_NOTE, CAUTION } from '../addin/jobs/notes.js';
+import { paramsFromBlock } from '../addin/jobs/review/plan.js';
+import { commit, OccupiedError, undo } from '../addin/shell/writer.js';
 import { paramsBlock } from '../functions/core/block.js';
 import { expectClose } from './expect.js';
 

@@ -7,11 +7,11 @@
 import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { compileMaterial, cToKelvin, getFamily, modulusMPa, simulateHdt } from '../src/index.js';
-import { readCalibration } from '../addin/calibrate-form.js';
-import { calibrationPlan, runCalibration } from '../addin/calibrate-job.js';
-import { cellAddress } from '../addin/a1.js';
-import { blockRows } from '../addin/families-job.js';
-import { reviewPlan, type Load } from '../addin/review.js';
+import { readCalibration } from '../addin/jobs/calibrate/request.js';
+import { calibrationPlan, runCalibration } from '../addin/jobs/calibrate/plan.js';
+import { cellAddress } from '../addin/sheet/a1.js';
+import { blockRows } from '../addin/jobs/lookup/plan.js';
+import { reviewPlan, type Load } from '../addin/jobs/review/plan.js';
 import { expectClose } from './expect.js';
 
 const HOST = '../functions/host/hyperformula.js';

@@ -7,11 +7,11 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { getFamily } from '../src/index.js';
-import { blockRows, familyBlockPlan } from '../addin/families-job.js';
-import { OfficeSheet } from '../addin/office-sheet.js';
-import { MODULUS_NUMBER_FORMAT } from '../addin/port.js';
-import { reviewPlan, type ReviewInput } from '../addin/review.js';
-import { commit, undo } from '../addin/writer.js';
+import { blockRows, familyBlockPlan } from '../addin/jobs/lookup/plan.js';
+import { OfficeSheet } from '../addin/sheet/office-sheet.js';
+import { MODULUS_NUMBER_FORMAT } from '../addin/sheet/port.js';
+import { reviewPlan, type ReviewInput } from '../addin/jobs/review/plan.js';
+import { commit, undo } from '../addin/shell/writer.js';
 import { ExcelHost } from './support/excel-host.js';
 import { loadOfficeJs, type OfficeJs } from './support/office-js.js';
 

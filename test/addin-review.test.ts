@@ -12,9 +12,9 @@ import {
   parseTimeS,
   TEXT_FIELDS,
 } from '../src/index.js';
-import { boxAddress, columnName, parseCell, parseRef, qualified, quoteSheet } from '../addin/a1.js';
-import { blockRows, familyBlockPlan, parameterRows, searchFamilies, summarize } from '../addin/families-job.js';
-import { formatModulus } from '../addin/port.js';
+import { boxAddress, columnName, parseCell, parseRef, qualified, quoteSheet } from '../addin/sheet/a1.js';
+import { blockRows, familyBlockPlan, parameterRows, searchFamilies, summarize } from '../addin/jobs/lookup/plan.js';
+import { formatModulus } from '../addin/sheet/port.js';
 import { paramsBlock } from '../functions/core/block.js';
 import {
   logAxisMinimum,
@@ -25,7 +25,7 @@ import {
   reviewModulus,
   reviewPlan,
   type ReviewInput,
-} from '../addin/review.js';
+} from '../addin/jobs/review/plan.js';
 import { expectClose } from './expect.js';
 
 const ENGINE = 'engine modulusMPa, the call DERATE.MODULUS makes (consistency of pane and functions)';

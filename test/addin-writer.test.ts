@@ -1,10 +1,10 @@
 /** Safe writing through the in-memory sheet: nothing the user typed is overwritten or lost. */
 import { describe, expect, it } from 'vitest';
 import { getFamily } from '../src/index.js';
-import { blockRows, familyBlockPlan } from '../addin/families-job.js';
-import { MemoryWorkbook } from '../addin/memory-sheet.js';
-import { reviewPlan, type ReviewInput } from '../addin/review.js';
-import { checkTarget, commit, freeSheetName, OccupiedError, undo } from '../addin/writer.js';
+import { blockRows, familyBlockPlan } from '../addin/jobs/lookup/plan.js';
+import { MemoryWorkbook } from '../addin/sheet/memory-sheet.js';
+import { reviewPlan, type ReviewInput } from '../addin/jobs/review/plan.js';
+import { checkTarget, commit, freeSheetName, OccupiedError, undo } from '../addin/shell/writer.js';
 
 const REVIEW: ReviewInput = {
   candidates: [

@@ -1,6 +1,7 @@
 // The task pane: addin/boot.ts (the head script that loads Office.js inside Excel only) and addin/taskpane.ts bundled for the browser (ES modules; chart.js split into its own
 // chunk, fetched only by the in-page preview sheet, and the calibration job with the engine's least-squares code into another, fetched on the first
-// calibration: both are dynamic import() calls, so splitting is all this step needs), plus the page and its style sheet copied to dist/.
+// calibration: both are dynamic import() calls, so splitting is all this step needs), the page copied to dist/, and the style sheet
+// addin/taskpane.css with the parts it @imports (one beside each job's code) inlined in order into dist/taskpane.css.
 import { copyFileSync, mkdirSync, rmSync } from 'node:fs';
 import { build } from 'esbuild';
 
@@ -32,5 +33,10 @@ export default async function buildAddin() {
     logLevel: 'warning',
   });
   copyFileSync('addin/taskpane.html', 'dist/taskpane.html');
-  copyFileSync('addin/taskpane.css', 'dist/taskpane.css');
+  await build({
+    entryPoints: ['addin/taskpane.css'],
+    outfile: 'dist/taskpane.css',
+    bundle: true,
+    logLevel: 'warning',
+  });
 }

@@ -19,9 +19,9 @@ import {
   type CalibrationResult,
   type Material,
 } from '../../src/index.js';
-import { readCalibration, type CalibrationFields } from '../../addin/calibrate-form.js';
-import { calibrationLayout, runCalibration } from '../../addin/calibrate-job.js';
-import { blockRows, paramsBlockRows } from '../../addin/families-job.js';
+import { readCalibration, type CalibrationFields } from '../../addin/jobs/calibrate/request.js';
+import { calibrationLayout, runCalibration } from '../../addin/jobs/calibrate/plan.js';
+import { blockRows, paramsBlockRows } from '../../addin/jobs/lookup/plan.js';
 import { expectClose } from '../expect.js';
 
 let preview: Preview;

@@ -79,7 +79,7 @@ export function sheetPrefix(name: string): string {
   return /^[A-Za-z_][A-Za-z0-9_]*$/.test(name) ? name : `'${name.replace(/'/g, "''")}'`;
 }
 
-/** Parses "B2", "$B$2", "B2:C9" (no sheet): our own reader, independent of addin/a1.ts. */
+/** Parses "B2", "$B$2", "B2:C9" (no sheet): our own reader, independent of addin/sheet/a1.ts. */
 export function parseBox(address: string): Box {
   const m = /^\$?([A-Z]{1,3})\$?(\d+)(?::\$?([A-Z]{1,3})\$?(\d+))?$/i.exec(address.trim());
   if (!m) throw new HostError('InvalidArgument', `The argument is invalid or missing or has an incorrect format: '${address}'`);

@@ -1,10 +1,10 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
-import { BLOCK_HEADER, paramsBlock } from '../functions/core/block.js';
-import { FAMILIES, type Family } from '../src/material/families.js';
-import type { MaterialParams, NumericField } from '../src/material/params.js';
-import type { Cell } from './a1.js';
-import type { CellWrite } from './port.js';
-import type { Plan } from './writer.js';
+import { BLOCK_HEADER, paramsBlock } from '../../../functions/core/block.js';
+import { FAMILIES, type Family } from '../../../src/material/families.js';
+import type { MaterialParams, NumericField } from '../../../src/material/params.js';
+import type { Cell } from '../../sheet/a1.js';
+import type { CellWrite } from '../../sheet/port.js';
+import type { Plan } from '../../shell/writer.js';
 
 export interface Quantity {
   readonly label: string;

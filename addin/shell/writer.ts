@@ -3,8 +3,8 @@
  * everything this write did. Undo removes exactly what was written, and asks first if the user has
  * changed any of those cells since.
  */
-import { boxAddress, boxOf, qualified, type Box, type Cell } from './a1.js';
-import { filledCells, type CellValue, type CellWrite, type ChartSpec, type SheetPort, type WriteReceipt } from './port.js';
+import { boxAddress, boxOf, qualified, type Box, type Cell } from '../sheet/a1.js';
+import { filledCells, type CellValue, type CellWrite, type ChartSpec, type SheetPort, type WriteReceipt } from '../sheet/port.js';
 
 /** A block the pane wants to write; its formulas depend on where it lands. */
 export interface Plan {

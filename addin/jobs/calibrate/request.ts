@@ -1,13 +1,13 @@
 /**
  * The "calibrate a grade" job, its form: the datasheet numbers the user typed, read and checked into a
  * calibration request (engine units), and the words for the quality of a result. Light on purpose: the
- * calibration itself (calibrate-job.ts) is loaded on first use.
+ * calibration itself (plan.ts beside it) is loaded on first use.
  */
-import type { CalibrationResult, DatasheetInputs, HdtDatum, ModulusDatum } from '../src/fit/calibrate.js';
-import { InputError } from '../src/base/errors.js';
-import { getFamily, type Family } from '../src/material/families.js';
-import { HDT_MAX_C, HDT_METHODS, HDT_START_C } from '../src/answers/hdt.js';
-import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS } from '../src/base/units.js';
+import type { CalibrationResult, DatasheetInputs, HdtDatum, ModulusDatum } from '../../../src/fit/calibrate.js';
+import { InputError } from '../../../src/base/errors.js';
+import { getFamily, type Family } from '../../../src/material/families.js';
+import { HDT_MAX_C, HDT_METHODS, HDT_START_C } from '../../../src/answers/hdt.js';
+import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS } from '../../../src/base/units.js';
 
 /** What the user typed, as text; empty text means "not on my datasheet". */
 export interface CalibrationFields {

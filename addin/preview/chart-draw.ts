@@ -1,6 +1,6 @@
 /** The preview's chart drawing, with only the chart.js parts it uses (loaded on demand by memory-view.ts). */
 import { Chart, Legend, LinearScale, LineController, LineElement, LogarithmicScale, PointElement, Tooltip } from 'chart.js';
-import { formatModulus, type ChartSpec } from './port.js';
+import { formatModulus, type ChartSpec } from '../sheet/port.js';
 
 Chart.register(LineController, LineElement, PointElement, LinearScale, LogarithmicScale, Legend, Tooltip);
 

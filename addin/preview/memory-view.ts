@@ -2,10 +2,10 @@
  * Draws the in-memory workbook in the page when the pane runs outside Office: a grid with a contents
  * bar, sheet tabs, and the charts the pane added (drawn with chart.js, loaded only here).
  */
-import { boxAddress, cellAddress, columnName, type Box } from './a1.js';
-import { byId, h } from './dom.js';
-import type { MemoryWorkbook, StoredCell } from './memory-sheet.js';
-import { formatModulus, type ChartSpec } from './port.js';
+import { boxAddress, cellAddress, columnName, type Box } from '../sheet/a1.js';
+import { byId, h } from '../shell/dom.js';
+import type { MemoryWorkbook, StoredCell } from '../sheet/memory-sheet.js';
+import { formatModulus, type ChartSpec } from '../sheet/port.js';
 
 type ChartModule = typeof import('./chart-draw.js');
 type ChartInstance = ReturnType<ChartModule['drawChart']>;

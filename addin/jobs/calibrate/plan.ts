@@ -3,16 +3,16 @@
  * written from it: the calibrated parameter block (the DERATE.PARAMS layout, so any material argument
  * takes it back), its datasheet check below, the fitted parameters, the engine's notes and the cautions.
  * The pane loads this module (and with it the engine's least-squares code) on the first calibration;
- * reading the form is calibrate-form.ts.
+ * reading the form is request.ts.
  */
-import { calibrateDatasheet, calibrationCheckRows, type CalibrationResult } from '../src/fit/calibrate.js';
-import { InputError } from '../src/base/errors.js';
-import type { Box, Cell } from './a1.js';
-import { CALIBRATION_FIELD_NAMES as N, QUALITY_TEXT, type CalibrationRequest } from './calibrate-form.js';
-import { paramsBlockRows } from './families-job.js';
-import { CALIBRATION_NOTE, CAUTION } from './notes.js';
-import type { CellValue, CellWrite } from './port.js';
-import type { Plan } from './writer.js';
+import { calibrateDatasheet, calibrationCheckRows, type CalibrationResult } from '../../../src/fit/calibrate.js';
+import { InputError } from '../../../src/base/errors.js';
+import type { Box, Cell } from '../../sheet/a1.js';
+import { CALIBRATION_FIELD_NAMES as N, QUALITY_TEXT, type CalibrationRequest } from './request.js';
+import { paramsBlockRows } from '../lookup/plan.js';
+import { CALIBRATION_NOTE, CAUTION } from '../notes.js';
+import type { CellValue, CellWrite } from '../../sheet/port.js';
+import type { Plan } from '../../shell/writer.js';
 
 /** The engine's argument names, as the pane's fields. */
 const ENGINE_ARGUMENT: Record<string, string> = {

@@ -4,17 +4,17 @@
  * The values shown in the in-page sheet come from the engine directly, by the same calls the worksheet
  * functions make.
  */
-import { InputError } from '../src/base/errors.js';
-import { getFamily } from '../src/material/families.js';
-import { modulusAfterHistory } from '../src/answers/history.js';
-import { compileMaterial, modulusMPa, type Material } from '../src/material/model.js';
-import type { MaterialParams } from '../src/material/params.js';
-import { paramsFromBlockRows } from '../src/material/resolve.js';
-import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_HOUR } from '../src/base/units.js';
-import { cellAddress, columnName, qualified, type Box, type Cell } from './a1.js';
-import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from './notes.js';
-import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from './port.js';
-import type { Plan } from './writer.js';
+import { InputError } from '../../../src/base/errors.js';
+import { getFamily } from '../../../src/material/families.js';
+import { modulusAfterHistory } from '../../../src/answers/history.js';
+import { compileMaterial, modulusMPa, type Material } from '../../../src/material/model.js';
+import type { MaterialParams } from '../../../src/material/params.js';
+import { paramsFromBlockRows } from '../../../src/material/resolve.js';
+import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_HOUR } from '../../../src/base/units.js';
+import { cellAddress, columnName, qualified, type Box, type Cell } from '../../sheet/a1.js';
+import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from '../notes.js';
+import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from '../../sheet/port.js';
+import type { Plan } from '../../shell/writer.js';
 
 export type Candidate =
   | { readonly kind: 'family'; readonly id: string }
