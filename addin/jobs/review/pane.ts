@@ -5,6 +5,7 @@
  */
 import { InputError } from '../../../src/base/errors.js';
 import { FAMILIES } from '../../../src/material/families.js';
+import { VERDICT } from '../../../src/answers/verdict.js';
 import { qualified, type Box } from '../../sheet/a1.js';
 import { formatModulus } from '../../sheet/port.js';
 import { byId, h } from '../../shell/dom.js';
@@ -305,7 +306,7 @@ function renderSummary(input: ReviewInput): void {
             {},
             h('th', { scope: 'row' }, r.label),
             h('td', { class: 'num' }, formatModulus(r.lowestMPa)),
-            h('td', { class: r.pass ? 'pass' : 'fail' }, r.pass ? 'pass' : 'fail'),
+            h('td', { class: r.pass ? 'pass' : 'fail' }, r.pass ? VERDICT.pass : VERDICT.fail),
           ),
         ),
       ),

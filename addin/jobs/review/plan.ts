@@ -7,6 +7,7 @@
 import { InputError } from '../../../src/base/errors.js';
 import { getFamily } from '../../../src/material/families.js';
 import { modulusAfterHistory } from '../../../src/answers/history.js';
+import { VERDICT } from '../../../src/answers/verdict.js';
 import { compileMaterial, modulusMPa, type Material } from '../../../src/material/model.js';
 import type { MaterialParams } from '../../../src/material/params.js';
 import { paramsFromBlockRows } from '../../../src/material/resolve.js';
@@ -284,7 +285,10 @@ export function reviewPlan(input: ReviewInput): Plan {
         });
         const span = `${cellAddress(at(r, 1))}:${cellAddress(at(r, n))}`;
         put(r, n + 1, { formula: `=MIN(${span})`, value: res.lowestMPa, format: 'modulus' });
-        put(r, n + 2, { formula: `=IF(${cellAddress(at(r, n + 1))}>=${required},"pass","fail")`, value: res.pass ? 'pass' : 'fail' });
+        put(r, n + 2, {
+          formula: `=IF(${cellAddress(at(r, n + 1))}>=${required},"${VERDICT.pass}","${VERDICT.fail}")`,
+          value: res.pass ? VERDICT.pass : VERDICT.fail,
+        });
       });
 
       put(L.referenceRow, 0, { value: 'Required, MPa' });
