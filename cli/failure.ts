@@ -44,7 +44,8 @@ function optionFor(argument: string, command: Command, v: Values): string | null
   return shared !== undefined && Object.hasOwn(command.options, shared) ? `--${shared}` : null;
 }
 
-function describe(e: unknown): string {
+/** An unexpected error in one line for a report: its class and message. */
+export function describeFault(e: unknown): string {
   if (e instanceof Error) return `${e.name === 'Error' ? '' : `${e.name}: `}${e.message}`;
   return String(e);
 }
@@ -70,5 +71,5 @@ export function failure(e: unknown, command: Command, v: Values): { code: number
     return { code: EXIT.badInput, message: option === undefined ? e.message : `--${option}: ${e.message}` };
   }
   if (e instanceof SolverError) return { code: EXIT.noAnswer, message: `no answer: ${e.message}` };
-  return { code: EXIT.internal, message: `internal error (please report): ${describe(e)}` };
+  return { code: EXIT.internal, message: `internal error (please report): ${describeFault(e)}` };
 }

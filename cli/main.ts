@@ -340,7 +340,7 @@ export async function main(argv: readonly string[], out: Out, err: Out): Promise
   const command = COMMAND_TABLE.get(name);
   if (command === undefined) {
     const hint = name.startsWith('-') ? ' (the command comes first, then its options)' : '';
-    err.write(`resin-derate: unknown command '${oneLine(name, 60)}'${hint}; commands: ${[...COMMAND_TABLE.keys()].join(', ')}\n`);
+    err.write(`resin-derate: unknown command '${oneLine(name, 60)}'; commands: ${[...COMMAND_TABLE.keys()].join(', ')}${hint}\n`);
     return EXIT.badInput;
   }
   let values: Values = {};

@@ -5,7 +5,7 @@
  * is dropped quietly (EPIPE), and the command still finishes its files (demo --workbook).
  */
 import { main, VERSION } from './main.js';
-import { EXIT, oneLine } from './failure.js';
+import { describeFault, EXIT, oneLine } from './failure.js';
 
 export { main, VERSION };
 
@@ -33,7 +33,7 @@ export async function runCli(argv: readonly string[] = process.argv.slice(2)): P
   });
   process.stderr.on('error', () => undefined);
   const fault = (e: unknown): void => {
-    say(`resin-derate: internal error (please report): ${e instanceof Error ? e.message : String(e)}`);
+    say(`resin-derate: internal error (please report): ${describeFault(e)}`);
     process.exit(EXIT.internal);
   };
   process.on('uncaughtException', fault);
