@@ -34,7 +34,7 @@ import { CALIBRATION_COMMANDS } from './calibration.js';
 import { emit, json, material, materialInputFrom, opt, str, type Command, type Out, type Values } from './command.js';
 import { readArgs } from './args.js';
 import { checkWritable, writingTo } from './files.js';
-import { EXIT, failure, oneLine } from './failure.js';
+import { describeFault, EXIT, failure, oneLine } from './failure.js';
 // The version printed by --version, taken from package.json when the bundle is built.
 import pkg from '../package.json' with { type: 'json' };
 
@@ -323,6 +323,16 @@ function helpText(): string {
  * including a fault of the program, is one line on `err`; main never throws.
  */
 export async function main(argv: readonly string[], out: Out, err: Out): Promise<number> {
+  try {
+    return await dispatch(argv, out, err);
+  } catch (e) {
+    err.write(`resin-derate: ${oneLine(`internal error (please report): ${describeFault(e)}`)}\n`);
+    return EXIT.internal;
+  }
+}
+
+/** main() but for faults outside a command (a failing output stream, say), which main reports. */
+async function dispatch(argv: readonly string[], out: Out, err: Out): Promise<number> {
   const [name, ...rest] = argv;
   if (name === '--help' || name === '-h' || name === 'help') {
     out.write(helpText());

@@ -169,6 +169,9 @@ describe('failure reports', () => {
     const code = await main(['families'], broken, { write: (s: string) => (err += s) });
     expect(code).toBe(70);
     expect(err).toBe('resin-derate families: internal error (please report): RangeError: Maximum call stack size exceeded\n');
+    err = '';
+    expect(await main(['--help'], broken, { write: (s: string) => (err += s) })).toBe(70);
+    expect(err).toBe('resin-derate: internal error (please report): RangeError: Maximum call stack size exceeded\n');
   });
 
   it('names the --params file with the field, and --free names that are not parameter names', async () => {
