@@ -3,7 +3,6 @@
  * (relaxation or creep curves -> master curve, shift law, Prony table), dmafit (DMA sweep -> parameters)
  * and creepmod (apparent creep modulus). Registered into the command table of main.ts.
  */
-import { writeFileSync } from 'node:fs';
 import {
   calibrateDatasheet,
   creepModulusMPa,
@@ -14,6 +13,7 @@ import {
   kelvinToC,
   localSlope,
   modulusMPa,
+  NUMERIC_FIELDS,
   paramsToRecord,
   parseCsv,
   parseStressMPa,
@@ -31,16 +31,45 @@ import {
 } from '../src/index.js';
 import { csvTable, markdownTable, sig } from './format.js';
 import { emit, json, material, materialInputFrom, opt, readText, str, type Command, type Values } from './command.js';
+import { checkWritable, writeTextFile } from './files.js';
 import { inventedDmaCsv, inventedRelaxationCsv } from './demodata.js';
 
 const CAUTION =
   'Screening estimates only: a calibrated or fitted record reproduces the numbers it was given, not the part. Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code and defer to licensed engineering review for parts whose failure can hurt someone.';
 
+/** Refuses an --out path that cannot be written before a fit spends its time (files.ts). */
+function checkOut(v: Values): void {
+  const file = opt(v, 'out');
+  if (file !== undefined) checkWritable(file, '--out');
+  else if (v['out'] !== undefined) throw new InputError('--out', 'needs a file name');
+}
+
 function writeOut(v: Values, data: object): string {
   const file = opt(v, 'out');
   if (!file) return '';
-  writeFileSync(file, JSON.stringify(data, null, 2) + '\n');
+  writeTextFile(file, JSON.stringify(data, null, 2) + '\n', '--out');
   return `Record written to ${file} (use it with --params ${file}).\n`;
+}
+
+const FIELD_NAMES: readonly string[] = NUMERIC_FIELDS.map((f) => f.key);
+
+/** --free: parameter names, each checked here so that a typo reads as one rather than as a fitting problem. */
+function freeFields(text: string | undefined): NumericField[] {
+  const names = list(text);
+  for (const name of names) {
+    if (!FIELD_NAMES.includes(name))
+      throw new InputError('--free', `'${name}' is not a parameter name; the names are ${FIELD_NAMES.join(', ')}`);
+  }
+  return names as NumericField[];
+}
+
+/** The datasheet options of calibrate, by the engine's name of the input each gives. */
+const DATASHEET_OPTIONS = ['modulus23', 'hdt-a', 'hdt-b', 'hdt', 'tg', 'tm', 'creep', 'relax'] as const;
+
+/** The options among `keys` that were given (all of them when none was), for a message about several inputs. */
+function given(v: Values, keys: readonly string[]): string {
+  const there = keys.filter((k) => opt(v, k) !== undefined);
+  return (there.length > 0 ? there : keys).map((k) => `--${k}`).join(', ');
 }
 
 function list(text: string | undefined): string[] {
@@ -97,7 +126,24 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       out: { type: 'string' },
       ...json,
     },
+    names: {
+      start: '--params',
+      modulus23: '--modulus23',
+      Tg: '--tg',
+      Tm: '--tm',
+      hdt: (v) => given(v, ['hdt-a', 'hdt-b', 'hdt']),
+      'hdt stress': '--hdt',
+      'hdt temperature': (v) => given(v, ['hdt-a', 'hdt-b', 'hdt']),
+      'creep time': '--creep',
+      'creep temperature': '--creep',
+      'creep modulus': '--creep',
+      'relaxation time': '--relax',
+      'relaxation temperature': '--relax',
+      'relaxation modulus': '--relax',
+      inputs: (v) => given(v, DATASHEET_OPTIONS),
+    },
     run(v, out) {
+      checkOut(v);
       const start = materialInputFrom(v);
       const hdt: HdtDatum[] = [];
       const a = opt(v, 'hdt-a');
@@ -115,7 +161,7 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         hdt,
         moduli: [...modulusPoints(opt(v, 'creep'), 'creep', '--creep'), ...modulusPoints(opt(v, 'relax'), 'relaxation', '--relax')],
       };
-      const free = list(opt(v, 'free')) as NumericField[];
+      const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
       const r = calibrateDatasheet(start, inputs, { ...(free.length > 0 ? { free } : {}), ...(id ? { id } : {}) });
       const data = {
@@ -155,7 +201,9 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       out: { type: 'string' },
       ...json,
     },
+    names: { reference: '--ref', termsPerDecade: '--terms-per-decade' },
     run(v, out) {
+      checkOut(v);
       const file = str(v, 'data');
       const set = readCurveTable(parseCsv(readText(file, '--data')));
       const tg = opt(v, 'tg');
@@ -248,12 +296,13 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       ...json,
     },
     run(v, out) {
+      checkOut(v);
       const start = materialInputFrom(v);
       const sweep = readDmaTable(parseCsv(readText(str(v, 'data'), '--data')));
       const fText = str(v, 'frequency');
       const f = Number(fText.replace(/\s*hz$/i, ''));
       if (!(f > 0) || !Number.isFinite(f)) throw new InputError('--frequency', `must be a positive frequency in Hz, got '${fText}'`);
-      const free = list(opt(v, 'free')) as NumericField[];
+      const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
       const r = fitDma(start, sweep, { frequencyHz: f, ...(free.length > 0 ? { free } : {}), ...(id ? { id } : {}) });
       const data = {

@@ -1,19 +1,26 @@
 /** What every CLI command shares: its shape, the common options and reading a material from them. */
-import { readFileSync } from 'node:fs';
-import type { ParseArgsConfig } from 'node:util';
-import { InputError, isPronyRecord, paramsFromRecord, pronyFromRecord, type MaterialInput } from '../src/index.js';
+import { InputError, isPronyRecord, ParameterError, paramsFromRecord, pronyFromRecord, type MaterialInput } from '../src/index.js';
+import type { Options, Values } from './args.js';
+import { readJsonFile, readTextFile } from './files.js';
+
+export type { Options, Values } from './args.js';
 
 export interface Out {
   write(text: string): unknown;
 }
 
-export type Options = NonNullable<ParseArgsConfig['options']>;
-export type Values = Record<string, string | boolean | undefined>;
+/** The option an engine argument name came from: fixed, or chosen from what was given (calibrate's inputs). */
+export type OptionName = string | ((v: Values) => string);
 
 export interface Command {
   readonly summary: string;
   readonly usage: string;
   readonly options: Options;
+  /**
+   * Engine argument names (InputError.argument) this command's errors may carry, and the option each
+   * came from, beyond the defaults every command shares (main.ts ENGINE_NAMES).
+   */
+  readonly names?: Readonly<Record<string, OptionName>>;
   run(v: Values, out: Out): void | Promise<void>;
 }
 
@@ -38,12 +45,14 @@ export function emit(out: Out, v: Values, data: object, text: string): void {
   out.write(v['json'] ? JSON.stringify(data, null, 2) + '\n' : text);
 }
 
+/** A file's text for an option (--data); InputError naming the option when it cannot be read. */
 export function readText(file: string, argument: string): string {
-  try {
-    return readFileSync(file, 'utf8');
-  } catch (e) {
-    throw new InputError(argument, `cannot read '${file}': ${(e as Error).message}`);
-  }
+  return readTextFile(file, argument);
+}
+
+/** The message of an error met while reading or compiling the --params record, naming --params and the file. */
+export function paramsFileError(file: string, e: InputError | ParameterError): InputError {
+  return new InputError('--params', `in '${file}', ${e.message}`);
 }
 
 /** --family ID or --params FILE.json (a parameter record or a Prony record). */
@@ -52,20 +61,25 @@ export function materialInputFrom(v: Values): MaterialInput {
   const file = opt(v, 'params');
   if (family && file) throw new InputError('--family', 'give --family or --params, not both');
   if (file) {
-    let record: unknown;
-    try {
-      record = JSON.parse(readText(file, '--params'));
-    } catch (e) {
-      if (e instanceof InputError) throw e;
-      throw new InputError('--params', `cannot read JSON from '${file}': ${(e as Error).message}`);
-    }
+    const record = readJsonFile(file, '--params');
     if (typeof record !== 'object' || record === null || Array.isArray(record)) {
       throw new InputError('--params', `'${file}' must hold one JSON object of parameters`);
     }
     const r = record as Record<string, unknown>;
     // A calibration or fit output file carries the record under "params" / "material".
-    const inner = (r['params'] ?? r['material'] ?? r) as Record<string, unknown>;
-    return isPronyRecord(inner) ? pronyFromRecord(inner) : paramsFromRecord(inner);
+    const key = Object.hasOwn(r, 'params') ? 'params' : Object.hasOwn(r, 'material') ? 'material' : null;
+    const inner = key === null ? r : r[key];
+    if (typeof inner !== 'object' || inner === null || Array.isArray(inner)) {
+      throw new InputError('--params', `in '${file}', "${key}" must be a JSON object of parameters`);
+    }
+    try {
+      return isPronyRecord(inner as Record<string, unknown>)
+        ? pronyFromRecord(inner as Record<string, unknown>)
+        : paramsFromRecord(inner as Record<string, unknown>);
+    } catch (e) {
+      if (e instanceof InputError || e instanceof ParameterError) throw paramsFileError(file, e);
+      throw e;
+    }
   }
   if (family) return family;
   throw new InputError('--family', 'is required (a family id such as PC, or --params FILE.json)');

@@ -1,5 +1,4 @@
 /** The `resin-derate` command line: the engine's answers as text tables or JSON. */
-import { parseArgs } from 'node:util';
 import {
   apparentTgK,
   bandEstimate,
@@ -18,7 +17,6 @@ import {
   maxTemperatureK,
   maxTimeS,
   modulusAfterHistory,
-  ParameterError,
   paramsToRecord,
   parseStressMPa,
   parseTemperatureK,
@@ -26,8 +24,6 @@ import {
   resolveMaterial,
   shiftLog10,
   simulateHdt,
-  SolverError,
-  UnknownFamilyError,
   type InverseAnswer,
   type Material,
 } from '../src/index.js';
@@ -35,7 +31,12 @@ import { csvTable, markdownTable, sig } from './format.js';
 import { runDemo } from './demo.js';
 import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
 import { CALIBRATION_COMMANDS } from './calibration.js';
-import { emit, json, material, materialInputFrom, str, type Command, type Out, type Values } from './command.js';
+import { emit, json, material, materialInputFrom, opt, str, type Command, type Out, type Values } from './command.js';
+import { readArgs } from './args.js';
+import { checkWritable, writingTo } from './files.js';
+import { describeFault, EXIT, failure, oneLine } from './failure.js';
+// The version printed by --version, taken from package.json when the bundle is built.
+import pkg from '../package.json' with { type: 'json' };
 
 export type { Out } from './command.js';
 
@@ -53,17 +54,6 @@ function listOf(text: string, argument: string): string[] {
     .filter((s) => s !== '');
   if (items.length === 0) throw new InputError(argument, 'needs a comma-separated list');
   return items;
-}
-
-/** Runs an engine call whose InputErrors name engine arguments, renaming them to the CLI options they came from. */
-function renamed<T>(names: Readonly<Record<string, string>>, fn: () => T): T {
-  try {
-    return fn();
-  } catch (e) {
-    const to = e instanceof InputError ? names[e.argument] : undefined;
-    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
-    throw e;
-  }
 }
 
 function inverseText(a: InverseAnswer, above: string, below: string): string {
@@ -205,6 +195,7 @@ const COMMANDS: Record<string, Command> = {
     summary: 'equivalent time of a repeated duty cycle at a reference temperature, and the modulus after it',
     usage: "resin-derate eqtime --family ID --cycle '70 degC:8 h,30 degC:16 h' --cycles 3650 [--ref '70 degC'] [--json]",
     options: { ...material, cycle: { type: 'string' }, cycles: { type: 'string' }, ref: { type: 'string' }, ...json },
+    names: { temperature: '--cycle', temperatures: '--cycle', durations: '--cycle' },
     run(v, out) {
       const m = materialFrom(v);
       const segments = listOf(str(v, 'cycle'), '--cycle').map((item, i) => {
@@ -221,7 +212,7 @@ const COMMANDS: Record<string, Command> = {
         v['ref'] === undefined
           ? Math.max(...segments.map((s) => s.TK))
           : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
-      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
+      const teq = equivalentTimeS(m, segments, refK, cycles);
       const after = modulusAfterHistory(m, segments, cycles, refK);
       emit(
         out,
@@ -276,13 +267,14 @@ const COMMANDS: Record<string, Command> = {
     summary: 'derating table: modulus and ratio to 23 degC / 1 h for families at temperatures after a time',
     usage: "resin-derate table --families PC,PA66-cond --temps 23,60,80 --time '1000 h' [--format md|csv|json]",
     options: { families: { type: 'string' }, temps: { type: 'string' }, time: { type: 'string' }, format: { type: 'string' } },
+    names: { reference: '--families', temperature: '--temps', temperatures: '--temps' },
     run(v, out) {
       const ids = listOf(str(v, 'families'), '--families');
       const temps = listOf(str(v, 'temps'), '--temps').map((t) => kelvinToC(parseTemperatureK(t, '--temps')));
       const tS = parseTimeS(str(v, 'time'), '--time');
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = renamed({ reference: '--families', temperature: '--temps' }, () => deratingTable(ids, temps, tS));
+      const rows = deratingTable(ids, temps, tS);
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,
@@ -303,53 +295,77 @@ const COMMANDS: Record<string, Command> = {
     usage: `resin-derate demo [--workbook ${DEMO_WORKBOOK_PATH}]`,
     options: { workbook: { type: 'string' } },
     async run(v, out) {
+      // The default folder (demo/) is made when missing; a folder the user names must exist, as for --out.
+      const asked = opt(v, 'workbook');
+      if (asked !== undefined) checkWritable(asked, '--workbook', 'review.xlsx');
+      else if (v['workbook'] !== undefined) throw new InputError('--workbook', 'needs a file name');
       const review = runDemo(out);
-      const path = await writeDemoWorkbook(review, typeof v['workbook'] === 'string' ? v['workbook'] : DEMO_WORKBOOK_PATH);
+      const path = asked ?? DEMO_WORKBOOK_PATH;
+      await writingTo(path, '--workbook', 'review.xlsx', () => writeDemoWorkbook(review, path, asked === undefined));
       out.write(`\nWrote ${path} (DERATE.* formulas with the values above cached; open it in Excel with the Resin Derate add-in).\n`);
     },
   },
 };
 
+/** The commands by name; a Map, so that 'constructor' or '__proto__' is no command. */
+const COMMAND_TABLE: ReadonlyMap<string, Command> = new Map(Object.entries(COMMANDS));
+
+/** The version of this build (package.json). */
+export const VERSION: string = pkg.version;
+
 function helpText(): string {
-  const lines = Object.entries(COMMANDS).map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
-  return `resin-derate: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\n${CAUTION}\n`;
+  const lines = [...COMMAND_TABLE].map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
+  return `resin-derate ${VERSION}: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options; resin-derate --version)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\nA negative value follows its option as typed: --temp -40, or --temp=-40.\n${CAUTION}\n`;
 }
 
-/** Runs the CLI with the given arguments; returns the exit code. */
+/**
+ * Runs the CLI with the given arguments; returns the exit code (EXIT in failure.ts). Every failure,
+ * including a fault of the program, is one line on `err`; main never throws.
+ */
 export async function main(argv: readonly string[], out: Out, err: Out): Promise<number> {
-  const [name, ...rest] = argv;
-  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
-    out.write(helpText());
-    if (name === undefined) err.write('resin-derate: a command is required; the commands are listed above\n');
-    return name === undefined ? 1 : 0;
-  }
-  const command = COMMANDS[name];
-  if (!command) {
-    err.write(`resin-derate: unknown command '${name}'; commands: ${Object.keys(COMMANDS).join(', ')}\n`);
-    return 2;
-  }
   try {
-    const { values } = parseArgs({
-      args: [...rest],
-      options: { ...command.options, help: { type: 'boolean', short: 'h' } },
-      strict: true,
-      allowPositionals: false,
-    });
-    if (values['help']) {
-      out.write(`${command.summary}\n\nUsage: ${command.usage}\n`);
-      return 0;
-    }
-    await command.run(values as Values, out);
-    return 0;
+    return await dispatch(argv, out, err);
   } catch (e) {
-    err.write(`resin-derate ${name}: ${describeError(e).replace(/\s*\n\s*/g, ' ')}\n`);
-    return 2;
+    err.write(`resin-derate: ${oneLine(`internal error (please report): ${describeFault(e)}`)}\n`);
+    return EXIT.internal;
   }
 }
 
-function describeError(e: unknown): string {
-  if (e instanceof InputError || e instanceof ParameterError || e instanceof UnknownFamilyError || e instanceof SolverError)
-    return e.message;
-  if (e instanceof Error && 'code' in e && typeof e.code === 'string' && e.code.startsWith('ERR_PARSE_ARGS')) return e.message;
-  throw e;
+/** main() but for faults outside a command (a failing output stream, say), which main reports. */
+async function dispatch(argv: readonly string[], out: Out, err: Out): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === '--help' || name === '-h' || name === 'help') {
+    out.write(helpText());
+    return EXIT.answer;
+  }
+  if (name === undefined) {
+    out.write(helpText());
+    err.write('resin-derate: a command is required; the commands are listed above\n');
+    return EXIT.badInput;
+  }
+  if (name === '--version') {
+    out.write(`resin-derate ${VERSION}\n`);
+    return EXIT.answer;
+  }
+  const command = COMMAND_TABLE.get(name);
+  if (command === undefined) {
+    const hint = name.startsWith('-') ? ' (the command comes first, then its options)' : '';
+    err.write(`resin-derate: unknown command '${oneLine(name, 60)}'; commands: ${[...COMMAND_TABLE.keys()].join(', ')}${hint}\n`);
+    return EXIT.badInput;
+  }
+  let values: Values = {};
+  try {
+    const args = readArgs(rest, command.options, name);
+    if (args.help) {
+      out.write(`${command.summary}\n\nUsage: ${command.usage}\n`);
+      return EXIT.answer;
+    }
+    values = args.values;
+    await command.run(values, out);
+    return EXIT.answer;
+  } catch (e) {
+    const f = failure(e, command, values);
+    err.write(`resin-derate ${name}: ${oneLine(f.message)}\n`);
+    return f.code;
+  }
 }

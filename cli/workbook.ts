@@ -295,9 +295,9 @@ export async function buildDemoWorkbook(review: DemoReview): Promise<Workbook> {
   return wb;
 }
 
-/** Writes the demo workbook; returns the path written. */
-export async function writeDemoWorkbook(review: DemoReview, path = DEMO_WORKBOOK_PATH): Promise<string> {
-  mkdirSync(dirname(path), { recursive: true });
+/** Writes the demo workbook, making its folder first when `makeFolder`; returns the path written. */
+export async function writeDemoWorkbook(review: DemoReview, path = DEMO_WORKBOOK_PATH, makeFolder = true): Promise<string> {
+  if (makeFolder) mkdirSync(dirname(path), { recursive: true });
   const wb = await buildDemoWorkbook(review);
   await wb.xlsx.writeFile(path);
   return path;

@@ -61,7 +61,7 @@ describe('CLI contract, spawned: exit 0 with the documented JSON, or one stderr 
   });
   it('no command at all: help on stdout, one line on stderr, non-zero exit', async () => {
     const a = await spawnArgs([]);
-    expect(a.code).toBe(1);
+    expect(a.code).toBe(2);
     expect(a.out).toMatch(/Usage: resin-derate COMMAND/);
     expect(a.err.trim().split('\n')).toHaveLength(1);
   });

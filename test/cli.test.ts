@@ -96,10 +96,11 @@ describe('resin-derate CLI contract', () => {
       [['modulus', '--family', 'PC', '--temp', '80'], /--time: is required/],
       [['modulus', '--family', 'PA66', '--temp', '80', '--time', '1'], /unknown family 'PA66'; did you mean 'PA66-cond', 'PA66-dry'/],
       [['modulus', '--family', 'PC', '--temp', '80', '--time=-1 h'], /--time: a time must be greater than zero/],
-      [['modulus', '--family', 'PC', '--temp', '80', '--time', '-1 h'], /'--time' argument is ambiguous/],
+      [['modulus', '--family', 'PC', '--temp', '80', '--time', '-1 h'], /--time: a time must be greater than zero/],
       [['maxtemp', '--family', 'PC', '--modulus', 'lots', '--time', '1 h'], /--modulus: expected a number/],
       [['table', '--families', 'PC', '--temps', '23', '--time', '1', '--format', 'xml'], /--format: must be md, csv or json/],
-      [['modulus', '--family', 'PC', '--bogus', '1'], /Unknown option '--bogus'/],
+      [['modulus', '--family', 'PC', '--bogus', '1'], /modulus: --bogus: unknown option; modulus takes --family, --params, --temp, --time/],
+      [['modulus', '--family', 'PC', '--temp', '--time', '1 h'], /modulus: --temp: needs a value/],
       [['frobnicate'], /unknown command 'frobnicate'/],
     ];
     for (const [args, message] of cases) {

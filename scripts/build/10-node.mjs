@@ -5,6 +5,6 @@ import { build } from 'esbuild';
 export const nodeOptions = { bundle: true, platform: 'node', format: 'esm', target: 'node20', sourcemap: true, logLevel: 'warning' };
 
 export default async function buildNode() {
-  await build({ ...nodeOptions, entryPoints: ['cli/main.ts'], outfile: 'dist/cli.js' });
+  await build({ ...nodeOptions, entryPoints: ['cli/run.ts'], outfile: 'dist/cli.js' });
   await build({ ...nodeOptions, entryPoints: ['bench/bench.ts'], outfile: 'dist/bench.js', external: ['hyperformula'] });
 }
