@@ -1,7 +1,7 @@
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'demo/**', 'coverage/**', 'test-output/**'] },
+  { ignores: ['dist/**', 'deploy/**', 'node_modules/**', 'demo/**', 'coverage/**', 'test-output/**'] },
   ...tseslint.configs.recommended,
   {
     rules: {
