@@ -79,6 +79,20 @@ export function missingReferences(out) {
   return missing;
 }
 
+/** The manifest with its opening comment (which speaks of the development server) replaced by one about this deploy. */
+function deployedHeader(manifest, base, version) {
+  const head = /<!--\s*Resin Derate add-in manifest[\s\S]*?-->/.exec(manifest);
+  if (!head)
+    throw new Error('manifest/manifest.xml: its opening comment ("Resin Derate add-in manifest ...") is gone; the deploy rewrites it');
+  const text = [
+    '<!--',
+    `  Resin Derate add-in manifest ${version}, written by scripts/deploy.mjs for ${base}: every URL points there.`,
+    "  Made from manifest/manifest.xml; the Id is this add-in's own and stays the same across versions.",
+    '-->',
+  ].join('\n');
+  return manifest.replace(head[0], text);
+}
+
 /** Refuses an output folder that is not empty and not an earlier deploy of this add-in, or that lies in dist/. */
 function checkOut(out, id) {
   const dist = resolve(ROOT, 'dist');
@@ -125,7 +139,7 @@ export function deploy({ base, out, dist = join(ROOT, 'dist') }) {
   for (const d of CHUNK_DIRS) for (const f of files(join(dist, d)).filter((n) => !n.endsWith('.map'))) put(`${d}/${f}`);
 
   const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
-  const manifest = rebaseManifest(source, dev.origin, base);
+  const manifest = deployedHeader(rebaseManifest(source, dev.origin, base), base, pkg.version);
   const { problems, summary } = checkManifest(manifest, { iconDir: join(target, 'icons'), version: `${pkg.version}.0` });
   if (problems.length > 0) throw new Error(`the deployed manifest has ${problems.length} problem(s):\n  ${problems.join('\n  ')}`);
   put('manifest.xml', manifest);

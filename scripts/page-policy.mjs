@@ -23,7 +23,9 @@ export const OFFICE_JS_HOSTS = [...OFFICE_JS_CDN, MICROSOFT_AJAX_HOST];
  * The policy for every page. Scripts: our own files plus Office.js; no inline script, no eval (Office.js 1.1.110 uses
  * neither). Styles: our own files, plus inline styles because Office.js's Excel-on-the-web script sets them
  * (OfficeDev/office-js issue 1687); inline style cannot run code. Frames: only Office.js's own trust prompt from its
- * CDN. Connections, images and fonts: our own origin only (the add-in makes no network request; its data are bundled;
+ * CDN; the logging frame Office.js opens from telemetryservice.firstpartyapps.oaspapps.com when the page is opened
+ * outside Office (o15apptofilemappingtable.js, ULSEndpointProxy) or by a 16.00 Windows host (excel-win32-16.00.js) is
+ * refused: it only carries Office.js's own logs, which then stay in the page. Connections, images and fonts: our own origin only (the add-in makes no network request; its data are bundled;
  * Office.js sends its telemetry straight to Microsoft only on Windows and Mac builds older than 16.0.11601
  * (shouldSendDirectToAria in excel-win32-16.01.js), which cannot run a shared runtime anyway). No plugins, no <base>
  * or form targets elsewhere. frame-ancestors is left out on purpose: Excel on the web shows the pane in a frame of
