@@ -1,6 +1,6 @@
 // The add-in pages' Content-Security-Policy and the head edits the build makes with it. One policy for every place it
 // is enforced: the development server's header (scripts/serve.mjs) and the <meta http-equiv> the build writes into each
-// page, so that a static host that sends no headers of ours (npm run deploy) still enforces it.
+// page, so that a static host that sends no headers of ours (scripts/deploy.mjs) still enforces it.
 
 /** Office.js, loaded by a plain script in the pane page's head (Microsoft Learn, "Referencing the Office JavaScript API library"). */
 export const OFFICE_JS_URL = 'https://appsforoffice.microsoft.com/lib/1/hosted/office.js';
@@ -25,13 +25,13 @@ export const OFFICE_JS_HOSTS = [...OFFICE_JS_CDN, MICROSOFT_AJAX_HOST];
  * (OfficeDev/office-js issue 1687); inline style cannot run code. Frames: only Office.js's own trust prompt from its
  * CDN; the logging frame Office.js opens from telemetryservice.firstpartyapps.oaspapps.com when the page is opened
  * outside Office (o15apptofilemappingtable.js, ULSEndpointProxy) or by a 16.00 Windows host (excel-win32-16.00.js) is
- * refused: it only carries Office.js's own logs, which then stay in the page. Connections, images and fonts: our own origin only (the add-in makes no network request; its data are bundled;
- * Office.js sends its telemetry straight to Microsoft only on Windows and Mac builds older than 16.0.11601
- * (shouldSendDirectToAria in excel-win32-16.01.js), which cannot run a shared runtime anyway). No plugins, no <base>
- * or form targets elsewhere. frame-ancestors is left out on purpose: Excel on the web shows the pane in a frame of
- * one of several Microsoft domains, which a list would miss (and a <meta> policy cannot carry it at all). Microsoft
- * publishes no list of what Office.js needs (OfficeDev/office-js issue 1005 asks for one); this list is read from
- * Office.js itself.
+ * refused: it only carries Office.js's own logs, which then stay in the page. Connections, images and fonts: our own
+ * origin only (the add-in makes no network request; its data are bundled; Office.js sends its telemetry straight to
+ * Microsoft only on Windows and Mac builds older than 16.0.11601 (shouldSendDirectToAria in excel-win32-16.01.js),
+ * which cannot run a shared runtime anyway). No plugins, no <base> or form targets elsewhere. frame-ancestors is left
+ * out on purpose: Excel on the web shows the pane in a frame of one of several Microsoft domains, which a list would
+ * miss (and a <meta> policy cannot carry it at all). Microsoft publishes no list of what Office.js needs
+ * (OfficeDev/office-js issue 1005 asks for one); this list is read from Office.js itself.
  */
 export const CONTENT_SECURITY_POLICY = [
   "default-src 'self'",
