@@ -18,7 +18,7 @@ function above(i) {
 }
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'demo/**', 'coverage/**', 'test-output/**'] },
+  { ignores: ['dist/**', 'deploy/**', 'node_modules/**', 'demo/**', 'coverage/**', 'test-output/**'] },
   ...tseslint.configs.recommended,
   {
     rules: {

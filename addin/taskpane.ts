@@ -18,20 +18,25 @@ import { Shell } from './shell/shell.js';
 
 declare global {
   interface Window {
-    __resinDerateHost?: 'office' | 'browser';
-    /** Set in the preview only, for the browser tests and for curious users. */
+    /** Set whenever the in-page sheet is used (the preview, or the add-in page opened outside Excel), for the browser tests. */
     resinDeratePreview?: { workbook: MemoryWorkbook; view: MemoryView };
   }
 }
 
+/**
+ * The add-in page (taskpane.html) always loads Office.js in its head, wherever it is opened; Office.onReady says
+ * whether Excel opened it (outside Office it resolves with host null). The preview page (preview.html, marked
+ * data-page="preview") has no Office.js and uses the in-page sheet at once.
+ */
 async function pickPort(): Promise<{ port: SheetPort; note: string }> {
-  if (window.__resinDerateHost === 'office' && typeof Office !== 'undefined') {
-    const info = await Office.onReady();
-    if (info.host === Office.HostType.Excel) return { port: new OfficeSheet(), note: 'Connected to Excel' };
-    return { port: new MemoryWorkbook(), note: `This host (${String(info.host)}) is not Excel: using the in-page sheet` };
+  if (document.documentElement.dataset.page === 'preview') {
+    return { port: new MemoryWorkbook(), note: 'Preview: an in-page sheet stands in for Excel' };
   }
-  if (window.__resinDerateHost === 'office') return { port: new MemoryWorkbook(), note: 'Office.js did not load: using the in-page sheet' };
-  return { port: new MemoryWorkbook(), note: 'Preview: an in-page sheet stands in for Excel' };
+  if (typeof Office === 'undefined') return { port: new MemoryWorkbook(), note: 'Office.js did not load: using the in-page sheet' };
+  const info = await Office.onReady();
+  if (info.host === Office.HostType.Excel) return { port: new OfficeSheet(), note: 'Connected to Excel' };
+  if (info.host === null) return { port: new MemoryWorkbook(), note: 'Not opened by Excel: using the in-page sheet' };
+  return { port: new MemoryWorkbook(), note: `This host (${String(info.host)}) is not Excel: using the in-page sheet` };
 }
 
 async function start(): Promise<void> {

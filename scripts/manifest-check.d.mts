@@ -32,4 +32,5 @@ export interface ManifestSummary {
   urls: string[];
 }
 export declare function checkManifest(text: string, options?: CheckOptions): { problems: string[]; summary: ManifestSummary | undefined };
-export declare function rebaseManifest(text: string, fromOrigin: string, toOrigin: string): string;
+export declare function addinBase(text: string): string;
+export declare function rebaseManifest(text: string, fromOrigin: string, toBase: string): string;

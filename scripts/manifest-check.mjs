@@ -6,8 +6,9 @@
 //      schema's order, with its required children and attributes and no unknown ones. Element names, order and
 //      bounds follow the Office Add-ins manifest schema v1.1 (OfficeAppManifestV1_1, TaskPaneAppVersionOverridesV1_0,
 //      OfficeAppBasicTypesV1_0) and its reference pages, re-stated here as rules of our own;
-//   3. our own rules: resource ids resolve and are all used, https URLs on one origin, the shared runtime wired to one
-//      page, icon files present with the right pixel sizes, namespace DERATE, permission ReadWriteDocument.
+//   3. our own rules: resource ids resolve and are all used, https URLs on one origin and under the pane page's folder,
+//      the shared runtime wired to one page and one task pane, icon files present with the right pixel sizes,
+//      namespace DERATE, permission ReadWriteDocument.
 import { existsSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { SaxesParser } from 'saxes';
@@ -318,7 +319,9 @@ function all(node, predicate, acc = []) {
  *   namespace          expected custom functions namespace (default DERATE)
  *   permission         expected permission (default ReadWriteDocument)
  *   version            expected Version text, if any
- *   contract           expected URL paths {page, script, metadata} (defaults /taskpane.html, /functions.js, /functions.json)
+ *   contract           expected URL paths {page, script, metadata} below the pane page's folder (defaults /taskpane.html,
+ *                      /functions.js, /functions.json: with the pane at https://host/addin/taskpane.html, the script must
+ *                      be https://host/addin/functions.js)
  * Returns { problems: string[], summary } where summary lists what was found.
  */
 export function checkManifest(text, options = {}) {
@@ -355,11 +358,15 @@ export function checkManifest(text, options = {}) {
   for (const r of out.resources) if (!used.has(r.id)) problems.push(`resource "${r.id}" (line ${r.line}) is never used`);
   const value = (id) => byId.get(id)?.value;
 
-  // URLs: https, absolute, one origin (the pane's), no path tricks.
+  // URLs: https, absolute, one origin (the pane's) and under the pane page's folder (a deployment may serve the add-in
+  // from a path such as https://host/resin-derate/), no path tricks.
   const pane = find(root, 'DefaultSettings', 'SourceLocation')[0]?.attrs.DefaultValue;
   let origin;
+  let folder;
   try {
-    origin = pane ? new URL(pane).origin : undefined;
+    const url = pane ? new URL(pane) : undefined;
+    origin = url?.origin;
+    folder = url ? new URL('./', url).href : undefined;
   } catch {
     origin = undefined;
   }
@@ -374,12 +381,16 @@ export function checkManifest(text, options = {}) {
     if (parsed.protocol !== 'https:') problems.push(`${u.path} (line ${u.line}) must use https: "${u.url}"`);
     if (origin && parsed.origin !== origin)
       problems.push(`${u.path} (line ${u.line}) is on ${parsed.origin}; every URL must be on the pane's origin ${origin}`);
+    else if (folder && !parsed.href.startsWith(folder))
+      problems.push(`${u.path} (line ${u.line}) is outside the pane page's folder ${folder}: "${u.url}"`);
     if (u.url.includes('..') || parsed.search || parsed.hash || parsed.username)
       problems.push(`${u.path} (line ${u.line}) must be a plain file URL: "${u.url}"`);
   }
+  /** The URL's path below the pane page's folder, as "/name" (the form of the contract), or undefined outside it. */
   const pathOf = (url) => {
     try {
-      return new URL(url ?? '').pathname;
+      const href = new URL(url ?? '').href;
+      return folder && href.startsWith(folder) ? `/${href.slice(folder.length)}` : undefined;
     } catch {
       return undefined;
     }
@@ -432,9 +443,15 @@ export function checkManifest(text, options = {}) {
     const nsId = find(cf, 'Namespace')[0]?.attrs.resid;
     if (value(nsId) !== namespace) problems.push(`the custom functions namespace is ${value(nsId) ?? 'missing'}; expected ${namespace}`);
   }
-  const taskpaneIds = all(root, (n) => n.name === 'TaskpaneId').map((n) => n.text.trim());
-  if (taskpaneIds.length === 0 || new Set(taskpaneIds).size !== 1)
-    problems.push('every ShowTaskpane action needs the same <TaskpaneId> (a shared runtime supports one task pane)');
+  // "A shared runtime only supports the use of one task pane. Note that any task pane without a <TaskpaneID> is
+  // considered a different task pane." (Microsoft Learn, "Configure your Office Add-in to use a shared runtime",
+  // Multiple task panes.) So one ShowTaskpane action, on the runtime's page, with no TaskpaneId of its own: the pane it
+  // opens is the one Office.addin.showAsTaskpane() shows, not a second container named by an id.
+  const panes = all(root, (n) => n.name === 'Action' && n.attrs['xsi:type'] === 'ShowTaskpane');
+  if (panes.length !== 1)
+    problems.push(`the add-in must have exactly one ShowTaskpane action (a shared runtime supports one task pane); found ${panes.length}`);
+  for (const n of all(root, (x) => x.name === 'TaskpaneId'))
+    problems.push(`<TaskpaneId> (line ${n.line}) must go: the one task pane of the shared runtime is opened without an id`);
   const ids = all(root, (n) => n.ns === NS.ov && (n.name === 'Group' || n.name === 'Control')).map((n) => n.attrs.id);
   if (new Set(ids).size !== ids.length) problems.push(`group and control ids must be unique: ${ids.join(', ')}`);
 
@@ -497,11 +514,25 @@ export function checkManifest(text, options = {}) {
   return { problems, summary };
 }
 
-/** Replaces the development origin in every URL of the manifest text (for a deployment build). */
-export function rebaseManifest(text, fromOrigin, toOrigin) {
-  const target = new URL(toOrigin);
-  if (target.protocol !== 'https:' || target.pathname !== '/' || target.search || target.hash) {
-    throw new Error(`the add-in origin must be a bare https origin such as https://addins.example.com; got "${toOrigin}"`);
+/**
+ * The add-in's base URL (the folder its files are served from) from what a person typed: https only, no query,
+ * fragment or credentials; a missing final slash is added. Throws an Error saying what was wrong.
+ */
+export function addinBase(text) {
+  let url;
+  try {
+    url = new URL(text);
+  } catch {
+    throw new Error(`the add-in base URL must be an https URL such as https://addins.example.com/resin-derate/; got "${text}"`);
   }
-  return text.split(`"${fromOrigin}/`).join(`"${target.origin}/`);
+  if (url.protocol !== 'https:')
+    throw new Error(`the add-in base URL must use https (Office loads add-in pages over https only); got "${text}"`);
+  if (url.search || url.hash || url.username || url.password || text.includes('?') || text.includes('#'))
+    throw new Error(`the add-in base URL must be a plain folder URL, without query, fragment or user name; got "${text}"`);
+  return url.href.endsWith('/') ? url.href : `${url.href}/`;
+}
+
+/** Replaces the development origin in every URL of the manifest text with the add-in's base URL (for a deployment). */
+export function rebaseManifest(text, fromOrigin, toBase) {
+  return text.split(`"${fromOrigin}/`).join(`"${addinBase(toBase)}`);
 }

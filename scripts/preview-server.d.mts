@@ -5,3 +5,4 @@ export interface Preview {
 }
 export function startPreview(options?: { root?: string; port?: number; host?: string }): Promise<Preview>;
 export const PREVIEW_CONTENT_SECURITY_POLICY: string;
+export const PREVIEW_PAGE: string;

@@ -12,37 +12,10 @@ import https from 'node:https';
 import { homedir } from 'node:os';
 import { extname, join, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { CONTENT_SECURITY_POLICY } from './page-policy.mjs';
 
-/**
- * Hosts that serve Office.js. A page inside Excel must load Office.js from Microsoft's CDN (the library is not
- * published for bundling); Office.js then loads its host-specific parts from the same CDN, and on some hosts
- * MicrosoftAjax.js from ajax.aspnetcdn.com. The CDN moved to officeapis.public.onecdn.static.microsoft; the older
- * appsforoffice.microsoft.com URL still works, so both are allowed.
- */
-export const OFFICE_JS_HOSTS = [
-  'https://appsforoffice.microsoft.com',
-  'https://officeapis.public.onecdn.static.microsoft',
-  'https://ajax.aspnetcdn.com',
-];
-
-/**
- * The policy for every page. Scripts: our own files plus Office.js; no inline script, no eval. Styles: our own
- * files, plus inline styles because Office.js's Excel-on-the-web script sets them (OfficeDev/office-js issue 1687);
- * inline style cannot run code. Connections, images and fonts: our own origin only (the add-in makes no network
- * request; its data are bundled). No plugins, no <base> or form targets elsewhere. frame-ancestors is left out on
- * purpose: Excel on the web shows the pane in a frame of one of several Microsoft domains, which a list would miss.
- */
-export const CONTENT_SECURITY_POLICY = [
-  "default-src 'self'",
-  `script-src 'self' ${OFFICE_JS_HOSTS.join(' ')}`,
-  "style-src 'self' 'unsafe-inline'",
-  "img-src 'self'",
-  "font-src 'self'",
-  "connect-src 'self'",
-  "object-src 'none'",
-  "base-uri 'self'",
-  "form-action 'self'",
-].join('; ');
+// The policy and the Office.js hosts live in page-policy.mjs, which the build also writes into every page as a <meta>.
+export { CONTENT_SECURITY_POLICY, OFFICE_JS_HOSTS } from './page-policy.mjs';
 
 const TYPES = {
   '.html': 'text/html; charset=utf-8',
@@ -77,8 +50,8 @@ function send(res, status, text, extra = {}) {
   res.end(res.req.method === 'HEAD' ? undefined : `${text}\n`);
 }
 
-/** Request handler serving files below root only: no listing, no dotfiles, no way out through .. or links. */
-export function createHandler(root) {
+/** Request handler serving files below root only: no listing, no dotfiles, no way out through .. or links. / sends index. */
+export function createHandler(root, index = 'taskpane.html') {
   const realRoot = realpathSync(root);
   return (req, res) => {
     if (req.method !== 'GET' && req.method !== 'HEAD') return send(res, 405, 'Method not allowed', { Allow: 'GET, HEAD' });
@@ -88,7 +61,7 @@ export function createHandler(root) {
     } catch {
       return send(res, 400, 'Bad request');
     }
-    if (pathname === '/') return send(res, 302, 'See /taskpane.html', { Location: '/taskpane.html' });
+    if (pathname === '/') return send(res, 302, `See /${index}`, { Location: `/${index}` });
     const segments = pathname.split('/').filter((s) => s !== '');
     if (pathname.includes('\0') || pathname.includes('\\') || segments.some((s) => s.startsWith('.'))) return send(res, 404, 'Not found');
     const candidate = resolve(realRoot, ...segments);
@@ -158,7 +131,7 @@ async function tlsOptions(options) {
 
 /** Starts the server; resolves with it and its base URL once it listens. */
 export async function startServer(options) {
-  const handler = createHandler(options.root);
+  const handler = createHandler(options.root, options.index);
   const server = options.http ? http.createServer(handler) : https.createServer(await tlsOptions(options), handler);
   await new Promise((ok, fail) => {
     server.once('error', fail);

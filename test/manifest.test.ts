@@ -4,6 +4,8 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { checkManifest, parseXml, rebaseManifest } from '../scripts/manifest-check.mjs';
 
 const MANIFEST = readFileSync('manifest/manifest.xml', 'utf8');
+/** The ribbon button, to make a manifest with two. */
+const CONTROL = /[ ]*<Control xsi:type="Button"[\s\S]*?<\/Control>\n/.exec(MANIFEST)?.[0] ?? '';
 const pkg = JSON.parse(readFileSync('package.json', 'utf8')) as { version: string };
 const OPTIONS = { iconDir: 'manifest/icons', version: `${pkg.version}.0` };
 
@@ -171,8 +173,27 @@ describe('the manifest check catches', () => {
       'DefaultValue="https://localhost:3000/icons/icon-15.png"',
       /does not exist/,
     ],
-    ['a second task pane', '<TaskpaneId>ResinDerate.Pane</TaskpaneId>\n', '', /TaskpaneId/],
+    // Microsoft Learn, "Configure your Office Add-in to use a shared runtime", Multiple task panes: one task pane only.
+    [
+      "a TaskpaneId naming a pane apart from the shared runtime's one",
+      '<Action xsi:type="ShowTaskpane">\n',
+      '<Action xsi:type="ShowTaskpane">\n                    <TaskpaneId>ResinDerate.Pane</TaskpaneId>\n',
+      /<TaskpaneId> \(line \d+\) must go/,
+    ],
+    [
+      'a second task pane button',
+      '</Control>\n',
+      '</Control>\n' + CONTROL.replace('id="ResinDerate.OpenPane"', 'id="ResinDerate.OpenPane2"'),
+      /exactly one ShowTaskpane action.*found 2/,
+    ],
   ];
+  it("a URL on the pane's origin but outside the pane page's folder", () => {
+    const moved = rebaseManifest(MANIFEST, 'https://localhost:3000', 'https://addins.example.com/resin-derate/').replace(
+      'https://addins.example.com/resin-derate/support.html',
+      'https://addins.example.com/support.html',
+    );
+    expect(problemsOf(moved).join('\n')).toMatch(/SupportUrl.*outside the pane page's folder https:\/\/addins.example.com\/resin-derate\//);
+  });
   for (const [what, from, to, expected] of cases) {
     it(what, () => {
       const problems = problemsOf(mutate(from, to));
@@ -181,7 +202,7 @@ describe('the manifest check catches', () => {
   }
 });
 
-describe('deployment origin', () => {
+describe('deployment base URL', () => {
   it('moves every URL to the given https origin and still passes', () => {
     const moved = rebaseManifest(MANIFEST, 'https://localhost:3000', 'https://addins.example.com');
     const { problems, summary } = checkManifest(moved, OPTIONS);
@@ -189,9 +210,19 @@ describe('deployment origin', () => {
     expect(summary?.urls.every((u) => u.startsWith('https://addins.example.com/'))).toBe(true);
     expect(moved).not.toContain('"https://localhost');
   });
-  it('refuses an http origin or one with a path', () => {
-    expect(() => rebaseManifest(MANIFEST, 'https://localhost:3000', 'http://addins.example.com')).toThrow(/bare https origin/);
-    expect(() => rebaseManifest(MANIFEST, 'https://localhost:3000', 'https://example.com/addin')).toThrow(/bare https origin/);
+  it('moves every URL below a folder of the host, with or without the final slash', () => {
+    for (const base of ['https://addins.example.com/resin-derate/', 'https://addins.example.com/resin-derate']) {
+      const { problems, summary } = checkManifest(rebaseManifest(MANIFEST, 'https://localhost:3000', base), OPTIONS);
+      expect(problems).toEqual([]);
+      expect(summary?.urls.every((u) => u.startsWith('https://addins.example.com/resin-derate/'))).toBe(true);
+      expect(summary?.urls).toContain('https://addins.example.com/resin-derate/functions.js');
+    }
+  });
+  it('refuses http, a query, a fragment or a user name', () => {
+    expect(() => rebaseManifest(MANIFEST, 'https://localhost:3000', 'http://addins.example.com')).toThrow(/must use https/);
+    expect(() => rebaseManifest(MANIFEST, 'https://localhost:3000', 'addins.example.com')).toThrow(/must be an https URL/);
+    for (const bad of ['https://example.com/addin/?v=2', 'https://example.com/addin/#x', 'https://me@example.com/addin/'])
+      expect(() => rebaseManifest(MANIFEST, 'https://localhost:3000', bad)).toThrow(/plain folder URL/);
   });
 });
 
@@ -232,6 +263,6 @@ describe('build step 40-manifest', () => {
       },
     );
     expect(run.status).not.toBe(0);
-    expect(run.stderr).toMatch(/bare https origin/);
+    expect(run.stderr).toMatch(/must use https/);
   });
 });

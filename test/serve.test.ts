@@ -8,6 +8,7 @@ import devCerts from 'office-addin-dev-certs';
 import { chromium, type Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CHROMIUM_ARGS, CHROMIUM_PATH } from '../scripts/ensure-chromium.mjs';
+import { OFFICE_JS_CDN } from '../scripts/page-policy.mjs';
 import { CONTENT_SECURITY_POLICY, OFFICE_JS_HOSTS, parseArgs } from '../scripts/serve.mjs';
 
 const work = mkdtempSync(join(tmpdir(), 'resin-serve-'));
@@ -111,6 +112,11 @@ describe('the policy itself', () => {
     expect(d.get('img-src')).toEqual(["'self'"]);
     expect(d.get('object-src')).toEqual(["'none'"]);
     expect(d.has('frame-ancestors')).toBe(false); // Excel on the web frames the pane
+  });
+  it("frames only Office.js's own trust prompt, from the CDN Office.js came from", () => {
+    // office.js of @microsoft/office-js 1.1.110 frames <its base path>AgaveErrorUX/index.html on an unknown web host.
+    expect(d.get('frame-src')).toEqual([...OFFICE_JS_CDN]);
+    expect(OFFICE_JS_HOSTS).toEqual(expect.arrayContaining([...OFFICE_JS_CDN]));
   });
   it('parses the command line and refuses unknown options', () => {
     expect(parseArgs([])).toMatchObject({ root: 'dist', host: 'localhost', port: 3000, http: false });

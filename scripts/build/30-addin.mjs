@@ -1,12 +1,16 @@
-// The task pane: addin/boot.ts (the head script that loads Office.js inside Excel only) and addin/taskpane.ts bundled for the browser (ES modules; chart.js split into its own
-// chunk, fetched only by the in-page preview sheet, and the calibration job with the engine's least-squares code into another, fetched on the first
-// calibration: both are dynamic import() calls, so splitting is all this step needs), the page copied to dist/, and the style sheet
-// addin/taskpane.css with the parts it @imports (one beside each job's code) inlined in order into dist/taskpane.css.
-import { copyFileSync, mkdirSync, rmSync } from 'node:fs';
+// The task pane: addin/taskpane.ts bundled for the browser (ES modules; chart.js split into its own chunk, fetched only by
+// the in-page preview sheet, and the calibration job with the engine's least-squares code into another, fetched on the
+// first calibration: both are dynamic import() calls, so splitting is all this step needs), plus the pages and the style
+// sheet. dist/taskpane.html is the add-in page: Office.js in its head, the Content-Security-Policy as a <meta>.
+// dist/preview.html is the same page without Office.js, for the offline preview (scripts/page-policy.mjs).
+import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { build } from 'esbuild';
+import { loadsOfficeJsFirst, previewPage, withPolicy } from '../page-policy.mjs';
 
 export default async function buildAddin() {
   rmSync('dist/pane-chunks', { recursive: true, force: true });
+  // Left by builds before Office.js was loaded by the page itself.
+  rmSync('dist/boot.js', { force: true });
   mkdirSync('dist', { recursive: true });
   await build({
     entryPoints: { taskpane: 'addin/taskpane.ts' },
@@ -22,21 +26,10 @@ export default async function buildAddin() {
     logLevel: 'warning',
     legalComments: 'linked',
   });
-  await build({
-    entryPoints: ['addin/boot.ts'],
-    outfile: 'dist/boot.js',
-    bundle: true,
-    format: 'iife',
-    platform: 'browser',
-    target: ['es2020'],
-    minify: true,
-    logLevel: 'warning',
-  });
-  copyFileSync('addin/taskpane.html', 'dist/taskpane.html');
-  await build({
-    entryPoints: ['addin/taskpane.css'],
-    outfile: 'dist/taskpane.css',
-    bundle: true,
-    logLevel: 'warning',
-  });
+  const page = readFileSync('addin/taskpane.html', 'utf8');
+  if (!loadsOfficeJsFirst(page)) throw new Error('addin/taskpane.html: the first script in its head must be Office.js, named once');
+  writeFileSync('dist/taskpane.html', withPolicy(page, 'addin/taskpane.html'));
+  writeFileSync('dist/preview.html', withPolicy(previewPage(page, 'addin/taskpane.html'), 'preview.html'));
+  // The style sheet @imports one part beside each job's code; esbuild inlines them in order.
+  await build({ entryPoints: ['addin/taskpane.css'], outfile: 'dist/taskpane.css', bundle: true, logLevel: 'warning' });
 }

@@ -1,13 +1,15 @@
 /**
  * The task pane in a real browser: Debian's Chromium driven by playwright-core against the preview
- * server, with the in-memory sheet. Every request that leaves localhost is blocked and fails the run.
+ * server (preview.html, the pane page without Office.js), with the in-memory sheet. Every request that
+ * leaves localhost is blocked and fails the run.
  */
 import { mkdirSync } from 'node:fs';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import buildAddin from '../../scripts/build/30-addin.mjs';
 import { CHROMIUM_ARGS, ensureChromium } from '../../scripts/ensure-chromium.mjs';
-import { startPreview, type Preview } from '../../scripts/preview-server.mjs';
+import { OFFICE_JS_URL } from '../../scripts/page-policy.mjs';
+import { PREVIEW_PAGE, startPreview, type Preview } from '../../scripts/preview-server.mjs';
 import {
   calibrationCheckRows,
   compileMaterial,
@@ -77,7 +79,7 @@ beforeAll(async () => {
   page.on('console', (m) => {
     if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) errors.push(m.text());
   });
-  await page.goto(`${preview.url}taskpane.html`);
+  await page.goto(`${preview.url}${PREVIEW_PAGE}`);
   await page.waitForSelector('body[data-ready=true]', { timeout: 20_000 });
   expect(errors).toEqual([]);
 }, 600_000);
@@ -89,7 +91,7 @@ afterAll(async () => {
 
 describe('task pane in Chromium with the in-memory sheet', () => {
   it('starts without Office and says so', async () => {
-    await expect(page.textContent('#host-note')).resolves.toMatch(/in-page sheet/);
+    await expect(page.textContent('#host-note')).resolves.toMatch(/^Preview: an in-page sheet/);
     expect(await page.isVisible('#preview')).toBe(true);
   });
 
@@ -456,8 +458,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.setViewportSize({ width: 1200, height: 900 });
   });
 
-  it('fetches Office.js only when Excel opened the page, and falls back to the in-page sheet when it cannot load', async () => {
-    const officeJs = 'https://appsforoffice.microsoft.com/lib/1/hosted/office.js';
+  it('the add-in page always asks for Office.js, without _host_Info, and falls back to the in-page sheet when it cannot load', async () => {
     const context = await browser.newContext({ viewport: { width: 400, height: 700 } });
     const attempts: string[] = [];
     await context.route('**/*', async (route) => {
@@ -469,12 +470,12 @@ describe('task pane in Chromium with the in-memory sheet', () => {
       }
     });
     const hosted = await context.newPage();
-    await hosted.goto(`${preview.url}taskpane.html?_host_Info=Excel$Win32$16.01$en-US$$$$0`);
+    await hosted.goto(`${preview.url}taskpane.html`);
     await hosted.waitForSelector('body[data-ready=true]', { timeout: 10_000 });
     await expect(hosted.textContent('#host-note')).resolves.toMatch(/Office.js did not load/);
     await context.close();
     // Blocked like everything else; this page is not counted with the main page's requests below.
-    expect(attempts).toEqual([officeJs]);
+    expect(attempts).toEqual([OFFICE_JS_URL]);
   });
 
   it('made no request outside localhost', () => {
