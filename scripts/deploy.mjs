@@ -12,6 +12,7 @@ import { copyFileSync, existsSync, mkdirSync, readdirSync, readFileSync, statSyn
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { addinBase, checkManifest, rebaseManifest } from './manifest-check.mjs';
+import { manifestXsdProblems } from './office-schemas.mjs';
 import { CONTENT_SECURITY_POLICY, loadsOfficeJsFirst, withPolicy } from './page-policy.mjs';
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url));
@@ -140,7 +141,10 @@ export function deploy({ base, out, dist = join(ROOT, 'dist') }) {
 
   const pkg = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8'));
   const manifest = deployedHeader(rebaseManifest(source, dev.origin, base), base, pkg.version);
-  const { problems, summary } = checkManifest(manifest, { iconDir: join(target, 'icons'), version: `${pkg.version}.0` });
+  const checked = checkManifest(manifest, { iconDir: join(target, 'icons'), version: `${pkg.version}.0` });
+  const { summary } = checked;
+  // Our own rules and Microsoft's published XSD (vendor/office-schemas/), as for the development manifest.
+  const problems = [...checked.problems, ...manifestXsdProblems(manifest, 'deployed manifest.xml').map((p) => `XSD: ${p}`)];
   if (problems.length > 0) throw new Error(`the deployed manifest has ${problems.length} problem(s):\n  ${problems.join('\n  ')}`);
   put('manifest.xml', manifest);
   const absent = (summary?.urls ?? []).filter((u) => !existsSync(join(target, ...u.slice(base.length).split('/'))));
