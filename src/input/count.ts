@@ -25,12 +25,15 @@ export function wholeNumber(min: number, max: number): Quantity<number> {
 }
 
 /** Points of a modulus-temperature curve (DERATE.CURVE): 2 to 1000, set here to keep a chart's series readable and a spill small. */
-export const CURVE_POINTS: readonly [number, number] = [2, 1000];
-export const curvePointsInput: Quantity<number> = wholeNumber(...CURVE_POINTS);
+const CURVE_POINTS_MIN = 2;
+const CURVE_POINTS_MAX = 1000;
+export const CURVE_POINTS: readonly [number, number] = [CURVE_POINTS_MIN, CURVE_POINTS_MAX];
+export const curvePointsInput: Quantity<number> = /* @__PURE__ */ wholeNumber(CURVE_POINTS_MIN, CURVE_POINTS_MAX);
 
 /** Prony terms per decade of a fitted master curve: 1 to 10 (set here; more only follows noise). */
-export const TERMS_PER_DECADE: readonly [number, number] = [1, 10];
-export const termsPerDecadeInput: Quantity<number> = wholeNumber(...TERMS_PER_DECADE);
+export const termsPerDecadeInput: Quantity<number> = /* @__PURE__ */ wholeNumber(1, 10);
+
+// wholeNumber is called with plain constants and marked pure, so a bundle that does not use a count drops it.
 
 /** Upper bound of a cycle count: 100 years of one cycle a day is 36 525; set here with a wide margin. */
 export const CYCLES_MAX = 1e7;

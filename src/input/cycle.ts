@@ -6,7 +6,7 @@ import { InputError } from '../base/errors.js';
 import { SECONDS_PER_HOUR, SECONDS_PER_YEAR } from '../base/units.js';
 import type { Segment } from '../answers/history.js';
 import { atItem, splitList } from './list.js';
-import { showRaw } from './quantity.js';
+import { showRaw, type Quantity } from './quantity.js';
 import { temperatureInput } from './temperature.js';
 import { TIME_RANGE_S, TIME_RANGE_TEXT, timeInput } from './time.js';
 
@@ -25,6 +25,15 @@ export function segmentsFromText(text: string, name: string): Segment[] {
     }),
   );
 }
+
+/** Duty-cycle segments typed as text (a CLI option); parsed to kelvin and seconds. */
+export const segmentsInput: Quantity<Segment[]> = {
+  what: SEGMENT_WHAT,
+  unit: 'degC:h',
+  parse(raw, name) {
+    return segmentsFromText(String(raw), name);
+  },
+};
 
 /** Segments from a list of temperatures and a list of durations of the same length; the error names the durations. */
 export function pairSegments(temperaturesK: readonly number[], durationsS: readonly number[], durationsName: string): Segment[] {

@@ -8,17 +8,19 @@ import { NUMERIC_FIELDS, type MaterialParams, type NumericField } from '../mater
 import type { Quantity, Raw } from './quantity.js';
 import { temperatureInRange } from './temperature.js';
 
-function fieldRange(key: NumericField): readonly [number, number] {
+/** A temperature in the range of a parameter field (degC). */
+function fieldTemperature(key: NumericField): Quantity<number> {
   const f = NUMERIC_FIELDS.find((x) => x.key === key);
   if (!f) throw new Error(`no parameter field ${key}`);
-  return [f.min, f.max];
+  return temperatureInRange(f.min, f.max);
 }
 
+// Marked pure so that a bundle without calibration drops them.
 /** A datasheet glass transition temperature, in the range of the Tg_C field; parsed to kelvin. */
-export const glassTransitionInput: Quantity<number> = temperatureInRange(...fieldRange('Tg_C'));
+export const glassTransitionInput: Quantity<number> = /* @__PURE__ */ fieldTemperature('Tg_C');
 
 /** A datasheet melting temperature, in the range of the Tm_C field; parsed to kelvin. */
-export const meltingInput: Quantity<number> = temperatureInRange(...fieldRange('Tm_C'));
+export const meltingInput: Quantity<number> = /* @__PURE__ */ fieldTemperature('Tm_C');
 
 /**
  * Checks a datasheet Tm against the starting material: only a semi-crystalline material has one, and it

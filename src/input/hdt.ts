@@ -15,7 +15,7 @@ export const HDT_STRESS_MAX_MPA = 50;
 
 const STRESS_WHAT =
   'a stress (a number in MPa, or text such as "1.8 MPa" or "260 psi"), or the ISO 75 method letter "A" (1.80 MPa), "B" (0.45 MPa) or "C" (8.00 MPa)';
-const testStress = stressUpTo(HDT_STRESS_MAX_MPA, STRESS_WHAT);
+const testStress = /* @__PURE__ */ stressUpTo(HDT_STRESS_MAX_MPA, STRESS_WHAT);
 
 /** The flexural stress of a heat deflection test, MPa, or the ISO 75 method letter A, B or C (any case). */
 export const hdtStressInput: Quantity<number> = {

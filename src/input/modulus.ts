@@ -23,7 +23,7 @@ export function stressUpTo(maxMPa: number, what: string): Quantity<number> {
 }
 
 /** A modulus (a required stiffness, a datasheet or creep modulus): greater than zero, at most 100 000 MPa; parsed to MPa. */
-export const modulusInput: Quantity<number> = stressUpTo(
+export const modulusInput: Quantity<number> = /* @__PURE__ */ stressUpTo(
   MODULUS_MAX_MPA,
   'a modulus (a number in MPa, or text such as "2.4 GPa" or "300 ksi")',
 );
