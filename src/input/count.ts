@@ -1,6 +1,6 @@
 /** Counts: whole numbers of points or terms, and the (possibly fractional) number of times a duty cycle repeats. */
 import { InputError } from '../base/errors.js';
-import { decimalNumber, showRaw, type Quantity, type Raw } from './quantity.js';
+import { decimalNumber, showRaw, type Quantity, type Raw, trimmed } from './quantity.js';
 
 function numberOf(raw: Raw, name: string, what: string): number {
   const n = typeof raw === 'number' ? raw : decimalNumber(raw);
@@ -16,7 +16,8 @@ export function wholeNumber(min: number, max: number): Quantity<number> {
     unit: 'count',
     min,
     max,
-    parse(raw, name) {
+    parse(input, name) {
+      const raw = trimmed(input);
       const n = numberOf(raw, name, what);
       if (!Number.isInteger(n) || n < min || n > max) throw new InputError(name, `expects ${what}, got ${showRaw(raw)}`);
       return n;
@@ -46,7 +47,8 @@ export const cyclesInput: Quantity<number> = {
   unit: 'count',
   min: 0,
   max: CYCLES_MAX,
-  parse(raw, name) {
+  parse(input, name) {
+    const raw = trimmed(input);
     const n = numberOf(raw, name, CYCLES_WHAT);
     if (n <= 0 || n > CYCLES_MAX) throw new InputError(name, `expects ${CYCLES_WHAT}, got ${showRaw(raw)}`);
     return n;

@@ -1,6 +1,6 @@
 /** A test frequency (DMA): a bare number is Hz, text may say Hz, kHz or mHz; parsed to Hz. */
 import { InputError } from '../base/errors.js';
-import { showRaw, type Quantity } from './quantity.js';
+import { showRaw, type Quantity, trimmed } from './quantity.js';
 
 /** Range of a DMA test frequency, Hz (instruments run from about 0.01 to 100 Hz; common practice), with a decade of margin. */
 const MIN_HZ = 1e-4;
@@ -18,7 +18,8 @@ export const frequencyInput: Quantity<number> = {
   unit: 'Hz',
   min: MIN_HZ,
   max: MAX_HZ,
-  parse(raw, name) {
+  parse(input, name) {
+    const raw = trimmed(input);
     let hz: number;
     if (typeof raw === 'number') hz = raw;
     else {

@@ -10,7 +10,7 @@ import { NUMERIC_FIELDS, type MaterialParams, type NumericField } from '../mater
 import { compilePronyMaterial, isPronyRecord, isPronyTable, pronyFromRecord, pronyFromTable } from '../material/pronymaterial.js';
 import type { PronyMaterialSpec } from '../material/pronymaterial.js';
 import { blankCommentRows, paramsFromBlockRows, paramsFromRecord, type BlockReadOptions } from '../material/resolve.js';
-import { showRaw, type Quantity, type Raw } from './quantity.js';
+import { showRaw, type Quantity, type Raw, trimmed } from './quantity.js';
 
 /**
  * A family symbol that is not bundled: the "not found" case (the worksheet answers #N/A). `problem`
@@ -32,7 +32,8 @@ export const FAMILY_WHAT = 'a family symbol such as "PC" or "PA66-cond"';
 export const familyInput: Quantity<Family> = {
   what: FAMILY_WHAT,
   unit: 'symbol',
-  parse(raw, name) {
+  parse(input, name) {
+    const raw = trimmed(input);
     if (typeof raw !== 'string') throw new InputError(name, `expects ${FAMILY_WHAT}, got the number ${raw}`);
     try {
       return getFamily(raw);
@@ -114,7 +115,8 @@ export const FIELD_NAMES_WHAT = 'parameter names such as "tauTg_s" or "beta" (th
 export const fieldNamesInput: Quantity<NumericField[] | undefined> = {
   what: FIELD_NAMES_WHAT,
   unit: 'names',
-  parse(raw, name) {
+  parse(input, name) {
+    const raw = trimmed(input);
     if (typeof raw !== 'string') throw new InputError(name, `expects ${FIELD_NAMES_WHAT}, got ${String(raw)}`);
     const texts = raw
       .split(/[,;]/)

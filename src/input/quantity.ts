@@ -44,9 +44,17 @@ export function readOptional<T>(q: Quantity<T>, raw: Raw | null | undefined, nam
   return raw === null || raw === undefined || isBlankInput(raw) ? undefined : q.parse(raw, name);
 }
 
-/** A raw value as messages quote it: a number as it is, text in double quotes. */
+/**
+ * Text without surrounding spaces (a number stays as it is): every quantity reads and quotes what was
+ * typed this way, whether a front-end trimmed it first (the pane) or not (a worksheet cell, an option).
+ */
+export function trimmed(raw: Raw): Raw {
+  return typeof raw === 'string' ? raw.trim() : raw;
+}
+
+/** A raw value as messages quote it: a number as it is, text (trimmed) in double quotes. */
 export function showRaw(raw: Raw): string {
-  return typeof raw === 'number' ? String(raw) : `"${raw}"`;
+  return typeof raw === 'number' ? String(raw) : `"${raw.trim()}"`;
 }
 
 const DECIMAL = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;

@@ -1,7 +1,7 @@
 /** Strain: a bare number is a fraction (0.005), text may be a percentage ("0.5 %"). */
 import { InputError } from '../base/errors.js';
 import { MAX_STRAIN } from '../answers/stress.js';
-import { decimalNumber, showRaw, type Quantity } from './quantity.js';
+import { decimalNumber, showRaw, type Quantity, trimmed } from './quantity.js';
 
 const WHAT = 'a strain (a fraction such as 0.005, or text such as "0.5 %")';
 
@@ -11,7 +11,8 @@ export const strainInput: Quantity<number> = {
   unit: 'fraction',
   min: 0,
   max: MAX_STRAIN,
-  parse(raw, name) {
+  parse(input, name) {
+    const raw = trimmed(input);
     let x: number;
     if (typeof raw === 'number') x = raw;
     else {

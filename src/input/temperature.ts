@@ -2,7 +2,7 @@
 import { InputError } from '../base/errors.js';
 import { KELVIN_OFFSET, kelvinToC, parseTemperatureK } from '../base/units.js';
 import { TEMP_SEARCH_K } from '../answers/inverse.js';
-import { refuseOverflow, showRaw, type Quantity, type Raw } from './quantity.js';
+import { refuseOverflow, showRaw, type Quantity, type Raw, trimmed } from './quantity.js';
 
 /**
  * The model's temperature range, degC: where the inverse solvers search (answers/inverse.ts), read from
@@ -19,7 +19,8 @@ function temperatureWithin(minC: number, maxC: number, outside: (raw: Raw) => st
     unit: 'degC',
     min: minC,
     max: maxC,
-    parse(raw: Raw, name: string): number {
+    parse(input: Raw, name: string): number {
+      const raw = trimmed(input);
       refuseOverflow(raw, name, 'a temperature');
       const K = parseTemperatureK(raw, name);
       const C = K - KELVIN_OFFSET;

@@ -2,7 +2,7 @@
 import { InputError } from '../base/errors.js';
 import { parseTimeS, SECONDS_PER_HOUR, SECONDS_PER_YEAR } from '../base/units.js';
 import { TIME_SEARCH_S } from '../answers/inverse.js';
-import { refuseOverflow, showRaw, type Quantity } from './quantity.js';
+import { refuseOverflow, showRaw, type Quantity, trimmed } from './quantity.js';
 
 /** The model's time range, seconds (1 ms to 100 years): where the inverse solvers search (answers/inverse.ts). */
 export const TIME_RANGE_S: readonly [number, number] = TIME_SEARCH_S;
@@ -16,7 +16,8 @@ export const timeInput: Quantity<number> = {
   unit: 'h',
   min: TIME_RANGE_S[0] / SECONDS_PER_HOUR,
   max: TIME_RANGE_S[1] / SECONDS_PER_HOUR,
-  parse(raw, name) {
+  parse(input, name) {
+    const raw = trimmed(input);
     refuseOverflow(raw, name, 'a time');
     const s = parseTimeS(raw, name);
     // Relative slack of 1e-12: "100 years" and "1 ms" typed exactly are inside.
