@@ -1,5 +1,5 @@
 /** Spilled tables for a review or a chart: a derating grid and a modulus-temperature curve. */
-import { CURVE_POINTS, curvePointsInput, deratingTable, kelvinToC, modulusMPa } from '../src/index.js';
+import { CURVE_POINTS, curvePointsInput, decimalNumber, deratingTable, kelvinToC, modulusMPa } from '../src/index.js';
 import { count } from './core/args/count.js';
 import { material, materials } from './core/args/material.js';
 import { temperatures } from './core/args/ranges.js';
@@ -54,7 +54,7 @@ export const CURVE = defineMatrix({
   ],
   spillSize: (shapes) => {
     const points = shapes[3]?.literal;
-    const n = typeof points === 'number' ? points : typeof points === 'string' ? Number(points) : NaN;
+    const n = typeof points === 'number' ? points : typeof points === 'string' ? (decimalNumber(points) ?? NaN) : NaN;
     return Number.isInteger(n) && n >= CURVE_POINTS[0] && n <= CURVE_POINTS[1] ? [n + 1, 2] : undefined;
   },
   run: (m, fromK, toK, n, tS) => {
