@@ -4,33 +4,48 @@
  * and creepmod (apparent creep modulus). Registered into the command table of main.ts.
  */
 import {
+  atItem,
   calibrateDatasheet,
+  checkHdtOrder,
+  checkMelting,
+  checkTemperatureInDomain,
   creepModulusMPa,
   fitCurves,
   fitDma,
+  frequencyInput,
+  getFamily,
+  glassTransitionInput,
   HDT_METHODS,
+  hdtStressInput,
+  hdtTemperatureInput,
   InputError,
+  isPronySpec,
   kelvinToC,
   localSlope,
+  meltingInput,
+  modulusInput,
   modulusMPa,
   NUMERIC_FIELDS,
+  type NumericField,
   paramsToRecord,
   parseCsv,
-  parseStressMPa,
-  parseTemperatureK,
-  parseTimeS,
   pronyToRecord,
   pronyToTable,
   readCurveTable,
   readDmaTable,
   resolveMaterial,
+  splitList,
+  temperatureInput,
+  termsPerDecadeInput,
+  timeInput,
   type DatasheetInputs,
-  type HdtDatum,
+  type HdtPoint,
+  type MaterialInput,
+  type MaterialParams,
   type ModulusDatum,
-  type NumericField,
 } from '../src/index.js';
 import { csvTable, markdownTable, sig } from './format.js';
-import { emit, json, material, materialInputFrom, opt, readText, str, type Command, type Values } from './command.js';
+import { emit, json, material, materialInputFrom, maybe, need, opt, readText, str, type Command, type Values } from './command.js';
 import { checkWritable, writeTextFile } from './files.js';
 import { inventedDmaCsv, inventedRelaxationCsv } from './demodata.js';
 
@@ -50,6 +65,8 @@ function writeOut(v: Values, data: object): string {
   writeTextFile(file, JSON.stringify(data, null, 2) + '\n', '--out');
   return `Record written to ${file} (use it with --params ${file}).\n`;
 }
+
+const MODULUS_POINT = 'TIME@TEMPERATURE:MODULUS items such as "1000 h@23 degC:1900"';
 
 const FIELD_NAMES: readonly string[] = NUMERIC_FIELDS.map((f) => f.key);
 
@@ -79,29 +96,75 @@ function list(text: string | undefined): string[] {
     .filter((s) => s !== '');
 }
 
-/** 'TIME@TEMPERATURE:MODULUS' items, e.g. '1000 h@23 degC:1900'. */
+/** 'TIME@TEMPERATURE:MODULUS' items, e.g. '1000 h@23 degC:1900'; each value read by the input layer. */
 function modulusPoints(text: string | undefined, kind: ModulusDatum['kind'], argument: string): ModulusDatum[] {
-  return list(text).map((item, i) => {
-    const m = /^(.+)@(.+):(.+)$/.exec(item);
-    if (!m) throw new InputError(argument, `item ${i + 1} '${item}' must be TIME@TEMPERATURE:MODULUS, such as '1000 h@23 degC:1900'`);
-    return {
-      kind,
-      timeS: parseTimeS(m[1]!.trim(), argument),
-      temperatureK: parseTemperatureK(m[2]!.trim(), argument),
-      modulusMPa: parseStressMPa(m[3]!.trim(), argument),
-    };
-  });
+  if (text === undefined) return [];
+  const items = splitList(text, argument, MODULUS_POINT);
+  return items.map((item, i) =>
+    atItem(argument, 'item', i, items.length, () => {
+      const m = /^(.+)@(.+):(.+)$/.exec(item);
+      if (!m) throw new InputError(argument, `"${item}" must be TIME@TEMPERATURE:MODULUS, such as "1000 h@23 degC:1900"`);
+      return {
+        kind,
+        timeS: timeInput.parse(m[1]!.trim(), argument),
+        temperatureK: temperatureInput.parse(m[2]!.trim(), argument),
+        modulusMPa: modulusInput.parse(m[3]!.trim(), argument),
+      };
+    }),
+  );
 }
 
-/** 'STRESS:TEMPERATURE' items, e.g. '8:95'. */
-function hdtPoints(text: string | undefined): HdtDatum[] {
-  return list(text).map((item, i) => {
-    const [s, t, extra] = item.split(':');
-    if (s === undefined || t === undefined || extra !== undefined) {
-      throw new InputError('--hdt', `item ${i + 1} '${item}' must be STRESS:TEMPERATURE, such as '8:95' (8 MPa, 95 degC)`);
-    }
-    return { stressMPa: parseStressMPa(s.trim(), '--hdt'), temperatureK: parseTemperatureK(t.trim(), '--hdt') };
-  });
+const HDT_POINT = 'STRESS:TEMPERATURE items such as "8:95" (8 MPa, 95 degC) or "A:120"';
+
+/** 'STRESS:TEMPERATURE' items, e.g. '8:95' or 'A:120'; the stress may be an ISO 75 method letter. */
+function hdtPoints(text: string | undefined): HdtPoint[] {
+  if (text === undefined) return [];
+  const items = splitList(text, '--hdt', HDT_POINT);
+  return items.map((item, i) =>
+    atItem('--hdt', 'item', i, items.length, () => {
+      const [s, t, extra] = item.split(':');
+      if (s === undefined || t === undefined || extra !== undefined) {
+        throw new InputError('--hdt', `"${item}" must be STRESS:TEMPERATURE, such as "8:95" (8 MPa, 95 degC)`);
+      }
+      return {
+        stressMPa: hdtStressInput.parse(s.trim(), '--hdt'),
+        temperatureK: hdtTemperatureInput.parse(t.trim(), '--hdt'),
+        raw: t.trim(),
+        name: '--hdt',
+      };
+    }),
+  );
+}
+
+/** The engine's argument names in a calibration, as the CLI's options. */
+const CALIBRATE_OPTION: Readonly<Record<string, string>> = {
+  start: '--family',
+  modulus23: '--modulus23',
+  Tg: '--tg',
+  Tm: '--tm',
+  hdt: '--hdt',
+  free: '--free',
+  inputs: 'datasheet options',
+  'creep modulus': '--creep',
+  'creep time': '--creep',
+  'creep temperature': '--creep',
+};
+
+/** Runs an engine call whose InputErrors name engine words; they come back naming the CLI option. */
+function asOptions<T>(names: Readonly<Record<string, string>>, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    const to = e instanceof InputError ? names[e.argument] : undefined;
+    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
+    throw e;
+  }
+}
+
+/** The parameter record a start names, for the checks that need it (none for a Prony material, which the engine refuses). */
+function startParams(start: MaterialInput): MaterialParams | undefined {
+  if (typeof start === 'string') return getFamily(start).params;
+  return isPronySpec(start) ? undefined : start;
 }
 
 const NUM = (x: number | null): string => (x === null ? '' : sig(x, 4));
@@ -145,25 +208,29 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
     run(v, out) {
       checkOut(v);
       const start = materialInputFrom(v);
-      const hdt: HdtDatum[] = [];
-      const a = opt(v, 'hdt-a');
-      const b = opt(v, 'hdt-b');
-      if (a) hdt.push({ stressMPa: HDT_METHODS.A, temperatureK: parseTemperatureK(a, '--hdt-a') });
-      if (b) hdt.push({ stressMPa: HDT_METHODS.B, temperatureK: parseTemperatureK(b, '--hdt-b') });
+      // The same checks as the worksheet's CALIBRATE and the pane's form (src/input/).
+      const hdt: HdtPoint[] = [];
+      const a = maybe(v, 'hdt-a', hdtTemperatureInput);
+      const b = maybe(v, 'hdt-b', hdtTemperatureInput);
+      if (a !== undefined) hdt.push({ stressMPa: HDT_METHODS.A, temperatureK: a, raw: opt(v, 'hdt-a') ?? '', name: '--hdt-a' });
+      if (b !== undefined) hdt.push({ stressMPa: HDT_METHODS.B, temperatureK: b, raw: opt(v, 'hdt-b') ?? '', name: '--hdt-b' });
       hdt.push(...hdtPoints(opt(v, 'hdt')));
-      const m23 = opt(v, 'modulus23');
-      const tg = opt(v, 'tg');
-      const tm = opt(v, 'tm');
+      checkHdtOrder(hdt);
+      const TgK = maybe(v, 'tg', glassTransitionInput);
+      const TmK = maybe(v, 'tm', meltingInput);
+      const p0 = startParams(start);
+      if (TmK !== undefined && p0) checkMelting(TmK, opt(v, 'tm') ?? '', TgK, p0, '--tm');
+      const m23 = maybe(v, 'modulus23', modulusInput);
       const inputs: DatasheetInputs = {
-        ...(m23 ? { modulus23MPa: parseStressMPa(m23, '--modulus23') } : {}),
-        ...(tg ? { TgK: parseTemperatureK(tg, '--tg') } : {}),
-        ...(tm ? { TmK: parseTemperatureK(tm, '--tm') } : {}),
-        hdt,
+        ...(m23 !== undefined ? { modulus23MPa: m23 } : {}),
+        ...(TgK !== undefined ? { TgK } : {}),
+        ...(TmK !== undefined ? { TmK } : {}),
+        hdt: hdt.map((h) => ({ stressMPa: h.stressMPa, temperatureK: h.temperatureK })),
         moduli: [...modulusPoints(opt(v, 'creep'), 'creep', '--creep'), ...modulusPoints(opt(v, 'relax'), 'relaxation', '--relax')],
       };
       const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
-      const r = calibrateDatasheet(start, inputs, { ...(free.length > 0 ? { free } : {}), ...(id ? { id } : {}) });
+      const r = asOptions(CALIBRATE_OPTION, () => calibrateDatasheet(start, inputs, { ...(free ? { free } : {}), ...(id ? { id } : {}) }));
       const data = {
         params: paramsToRecord(r.params),
         free: r.free,
@@ -206,18 +273,14 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       checkOut(v);
       const file = str(v, 'data');
       const set = readCurveTable(parseCsv(readText(file, '--data')));
-      const tg = opt(v, 'tg');
-      const ref = opt(v, 'ref');
-      const tpd = opt(v, 'terms-per-decade');
-      const perDecade = tpd === undefined ? undefined : Number(tpd);
-      if (perDecade !== undefined && !(Number.isInteger(perDecade) && perDecade >= 1 && perDecade <= 10)) {
-        throw new InputError('--terms-per-decade', `must be a whole number from 1 to 10, got '${tpd}'`);
-      }
+      const tg = maybe(v, 'tg', temperatureInput);
+      const ref = maybe(v, 'ref', temperatureInput);
+      const perDecade = maybe(v, 'terms-per-decade', termsPerDecadeInput);
       const id = opt(v, 'id');
       const fit = fitCurves(set, {
-        ...(tg ? { TgK: parseTemperatureK(tg, '--tg') } : {}),
-        ...(ref ? { referenceK: parseTemperatureK(ref, '--ref') } : {}),
-        ...(perDecade ? { termsPerDecade: perDecade } : {}),
+        ...(tg !== undefined ? { TgK: tg } : {}),
+        ...(ref !== undefined ? { referenceK: ref } : {}),
+        ...(perDecade !== undefined ? { termsPerDecade: perDecade } : {}),
         ...(id ? { id } : {}),
       });
       const law = fit.shiftLaw;
@@ -299,12 +362,12 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       checkOut(v);
       const start = materialInputFrom(v);
       const sweep = readDmaTable(parseCsv(readText(str(v, 'data'), '--data')));
-      const fText = str(v, 'frequency');
-      const f = Number(fText.replace(/\s*hz$/i, ''));
-      if (!(f > 0) || !Number.isFinite(f)) throw new InputError('--frequency', `must be a positive frequency in Hz, got '${fText}'`);
+      const f = need(v, 'frequency', frequencyInput);
       const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
-      const r = fitDma(start, sweep, { frequencyHz: f, ...(free.length > 0 ? { free } : {}), ...(id ? { id } : {}) });
+      const r = asOptions({ start: '--family', free: '--free', frequency: '--frequency' }, () =>
+        fitDma(start, sweep, { frequencyHz: f, ...(free ? { free } : {}), ...(id ? { id } : {}) }),
+      );
       const data = {
         params: paramsToRecord(r.params),
         free: r.free,
@@ -337,8 +400,8 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = resolveMaterial(materialInputFrom(v));
-      const TK = parseTemperatureK(str(v, 'temp'), '--temp');
-      const tS = parseTimeS(str(v, 'time'), '--time');
+      const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
+      const tS = need(v, 'time', timeInput);
       const Ec = creepModulusMPa(m, tS, TK);
       const Er = modulusMPa(m, tS, TK);
       const data = {

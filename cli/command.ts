@@ -1,5 +1,22 @@
-/** What every CLI command shares: its shape, the common options and reading a material from them. */
-import { InputError, isPronyRecord, ParameterError, paramsFromRecord, pronyFromRecord, type MaterialInput } from '../src/index.js';
+/**
+ * What every CLI command shares: its shape, the common options, and reading option values into
+ * quantities. Values go through the engine's input layer (src/input/), the same code that reads the
+ * worksheet's arguments and the pane's fields, so an option refuses what they refuse, with the same
+ * words and the option's name.
+ */
+import {
+  familyInput,
+  InputError,
+  isPronyRecord,
+  ParameterError,
+  paramsFromRecord,
+  pronyFromRecord,
+  readOptional,
+  readRequired,
+  UnknownFamilyInput,
+  type MaterialInput,
+  type Quantity,
+} from '../src/index.js';
 import type { Options, Values } from './args.js';
 import { readJsonFile, readTextFile } from './files.js';
 
@@ -26,6 +43,31 @@ export interface Command {
 
 export const material: Options = { family: { type: 'string' }, params: { type: 'string' } };
 export const json: Options = { json: { type: 'boolean' } };
+
+/** Where the CLI's list of bundled families is, added to an unknown-family message. */
+export const FAMILIES_POINTER = '(resin-derate families lists the symbols)';
+
+/** Runs an input-layer call; an unknown family's message says where the symbols are listed. */
+export function withPointer<T>(f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof UnknownFamilyInput) throw new InputError(e.argument, `${e.problem} ${FAMILIES_POINTER}`);
+    throw e;
+  }
+}
+
+/** A required option read as a quantity of the input layer; missing or wrong, the error names --key. */
+export function need<T>(v: Values, key: string, q: Quantity<T>): T {
+  const x = v[key];
+  return withPointer(() => readRequired(q, typeof x === 'string' ? x : undefined, `--${key}`));
+}
+
+/** An optional option read as a quantity; undefined when absent or empty. */
+export function maybe<T>(v: Values, key: string, q: Quantity<T>): T | undefined {
+  const x = v[key];
+  return withPointer(() => readOptional(q, typeof x === 'string' ? x : undefined, `--${key}`));
+}
 
 /** A required option's text; InputError naming --key when it is missing or empty. */
 export function str(v: Values, key: string): string {
@@ -55,7 +97,10 @@ export function paramsFileError(file: string, e: InputError | ParameterError): I
   return new InputError('--params', `in '${file}', ${e.message}`);
 }
 
-/** --family ID or --params FILE.json (a parameter record or a Prony record). */
+/**
+ * --family ID or --params FILE.json (a parameter record or a Prony record, checked by the input layer,
+ * errors naming --params); a family comes back as its canonical id.
+ */
 export function materialInputFrom(v: Values): MaterialInput {
   const family = opt(v, 'family');
   const file = opt(v, 'params');
@@ -81,6 +126,6 @@ export function materialInputFrom(v: Values): MaterialInput {
       throw e;
     }
   }
-  if (family) return family;
-  throw new InputError('--family', 'is required (a family id such as PC, or --params FILE.json)');
+  if (family) return withPointer(() => familyInput.parse(family, '--family').params.id);
+  throw new InputError('--family', 'is missing; type a family symbol such as PC, or give --params FILE.json');
 }

@@ -2,28 +2,33 @@
 import {
   apparentTgK,
   bandEstimate,
-  checkStrain,
+  checkHistory,
   checkTemperatureInDomain,
-  parseStrain,
+  cyclesInput,
   retainedStressMPa,
   deratingTable,
   equivalentTimeS,
   FAMILIES,
+  familyInput,
+  hdtStressInput,
   InputError,
   isPronySpec,
+  listInput,
   pronyToRecord,
   pronyToTable,
   kelvinToC,
   maxTemperatureK,
   maxTimeS,
   modulusAfterHistory,
+  modulusInput,
   paramsToRecord,
-  parseStressMPa,
-  parseTemperatureK,
-  parseTimeS,
   resolveMaterial,
+  segmentsInput,
   shiftLog10,
   simulateHdt,
+  strainInput,
+  temperatureInput,
+  timeInput,
   type InverseAnswer,
   type Material,
 } from '../src/index.js';
@@ -31,7 +36,7 @@ import { csvTable, markdownTable, sig } from './format.js';
 import { runDemo } from './demo.js';
 import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
 import { CALIBRATION_COMMANDS } from './calibration.js';
-import { emit, json, material, materialInputFrom, opt, str, type Command, type Out, type Values } from './command.js';
+import { emit, json, material, materialInputFrom, maybe, need, opt, type Command, type Out, type Values } from './command.js';
 import { readArgs } from './args.js';
 import { checkWritable, writingTo } from './files.js';
 import { describeFault, EXIT, failure, oneLine } from './failure.js';
@@ -47,13 +52,15 @@ function materialFrom(v: Values): Material {
   return resolveMaterial(materialInputFrom(v));
 }
 
-function listOf(text: string, argument: string): string[] {
-  const items = text
-    .split(',')
-    .map((s) => s.trim())
-    .filter((s) => s !== '');
-  if (items.length === 0) throw new InputError(argument, 'needs a comma-separated list');
-  return items;
+/** Runs an engine call whose InputErrors name engine arguments, renaming them to the CLI options they came from. */
+function renamed<T>(names: Readonly<Record<string, string>>, fn: () => T): T {
+  try {
+    return fn();
+  } catch (e) {
+    const to = e instanceof InputError ? names[e.argument] : undefined;
+    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
+    throw e;
+  }
 }
 
 function inverseText(a: InverseAnswer, above: string, below: string): string {
@@ -111,8 +118,8 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
-      const tS = parseTimeS(str(v, 'time'), '--time');
+      const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
+      const tS = need(v, 'time', timeInput);
       const b = bandEstimate(m, tS, TK);
       const data = {
         modulus_MPa: b.centralMPa,
@@ -131,7 +138,7 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, temp: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
+      const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
       const log10aT = shiftLog10(m.shift, TK);
       const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
       emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
@@ -143,8 +150,8 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, modulus: { type: 'string' }, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const req = parseStressMPa(str(v, 'modulus'), '--modulus');
-      const tS = parseTimeS(str(v, 'time'), '--time');
+      const req = need(v, 'modulus', modulusInput);
+      const tS = need(v, 'time', timeInput);
       const a = maxTemperatureK(m, req, tS);
       const T = a.value === null ? null : kelvinToC(a.value);
       const note = inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
@@ -162,8 +169,8 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, modulus: { type: 'string' }, temp: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const req = parseStressMPa(str(v, 'modulus'), '--modulus');
-      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
+      const req = need(v, 'modulus', modulusInput);
+      const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
       const a = maxTimeS(m, req, TK);
       const note = inverseText(a, 'beyond 100 years', 'never reached: below the required modulus already at 1 ms');
       emit(
@@ -185,7 +192,7 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const tS = parseTimeS(str(v, 'time'), '--time');
+      const tS = need(v, 'time', timeInput);
       const TK = apparentTgK(m, tS);
       const T = TK === null ? null : kelvinToC(TK);
       emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${sig(T, 4)} degC\n`);
@@ -198,21 +205,13 @@ const COMMANDS: Record<string, Command> = {
     names: { temperature: '--cycle', temperatures: '--cycle', durations: '--cycle' },
     run(v, out) {
       const m = materialFrom(v);
-      const segments = listOf(str(v, 'cycle'), '--cycle').map((item, i) => {
-        const [T, t, extra] = item.split(':');
-        if (T === undefined || t === undefined || extra !== undefined) {
-          throw new InputError('--cycle', `segment ${i + 1} '${item}' must be TEMPERATURE:DURATION, such as '70 degC:8 h'`);
-        }
-        return { TK: checkTemperatureInDomain(m, parseTemperatureK(T, '--cycle'), '--cycle'), dtS: parseTimeS(t, '--cycle') };
-      });
-      const cycles = v['cycles'] === undefined ? 1 : Number(v['cycles']);
-      if (!Number.isFinite(cycles) || cycles <= 0)
-        throw new InputError('--cycles', `must be a positive number, got '${String(v['cycles'])}'`);
-      const refK =
-        v['ref'] === undefined
-          ? Math.max(...segments.map((s) => s.TK))
-          : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
-      const teq = equivalentTimeS(m, segments, refK, cycles);
+      const segments = need(v, 'cycle', segmentsInput);
+      for (const s of segments) checkTemperatureInDomain(m, s.TK, '--cycle');
+      const cycles = maybe(v, 'cycles', cyclesInput) ?? 1;
+      checkHistory(segments, cycles, { cycles: '--cycles', durations: '--cycle' });
+      const ref = maybe(v, 'ref', temperatureInput);
+      const refK = ref === undefined ? Math.max(...segments.map((s) => s.TK)) : checkTemperatureInDomain(m, ref, '--ref');
+      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
       const after = modulusAfterHistory(m, segments, cycles, refK);
       emit(
         out,
@@ -234,9 +233,9 @@ const COMMANDS: Record<string, Command> = {
     options: { ...material, strain: { type: 'string' }, temp: { type: 'string' }, time: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const strain = checkStrain(parseStrain(str(v, 'strain'), '--strain'), '--strain');
-      const TK = checkTemperatureInDomain(m, parseTemperatureK(str(v, 'temp'), '--temp'), '--temp');
-      const tS = parseTimeS(str(v, 'time'), '--time');
+      const strain = need(v, 'strain', strainInput);
+      const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
+      const tS = need(v, 'time', timeInput);
       const r = retainedStressMPa(m, strain, tS, TK);
       const warn = r.beyondLinearRange ? ' (strain above about 1 %: beyond the usual linear range, estimate likely high)' : '';
       emit(
@@ -248,12 +247,12 @@ const COMMANDS: Record<string, Command> = {
     },
   },
   hdt: {
-    summary: 'simulated ISO 75 heat deflection temperature at a flexural stress (A 1.80, B 0.45 MPa)',
-    usage: 'resin-derate hdt --family ID --stress 1.8 [--json]',
+    summary: 'simulated ISO 75 heat deflection temperature at a flexural stress (A 1.80, B 0.45, C 8.00 MPa)',
+    usage: 'resin-derate hdt --family ID --stress A|B|C|1.8 [--json]',
     options: { ...material, stress: { type: 'string' }, ...json },
     run(v, out) {
       const m = materialFrom(v);
-      const stress = parseStressMPa(str(v, 'stress'), '--stress');
+      const stress = need(v, 'stress', hdtStressInput);
       const r = simulateHdt(m, stress);
       emit(
         out,
@@ -269,9 +268,10 @@ const COMMANDS: Record<string, Command> = {
     options: { families: { type: 'string' }, temps: { type: 'string' }, time: { type: 'string' }, format: { type: 'string' } },
     names: { reference: '--families', temperature: '--temps', temperatures: '--temps' },
     run(v, out) {
-      const ids = listOf(str(v, 'families'), '--families');
-      const temps = listOf(str(v, 'temps'), '--temps').map((t) => kelvinToC(parseTemperatureK(t, '--temps')));
-      const tS = parseTimeS(str(v, 'time'), '--time');
+      const ids = need(v, 'families', listInput(familyInput)).map((f) => f.params.id);
+      // degC for the table, with the round-off of the kelvin round trip removed (1e-9 K), as DERATE.GRID does.
+      const temps = need(v, 'temps', listInput(temperatureInput)).map((K) => Math.round(kelvinToC(K) * 1e9) / 1e9);
+      const tS = need(v, 'time', timeInput);
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
       const rows = deratingTable(ids, temps, tS);

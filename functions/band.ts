@@ -1,6 +1,8 @@
 /** The low / central / high band of an estimate and its region. */
 import { bandEstimate } from '../src/index.js';
-import { material, temperature, time } from './core/args.js';
+import { material } from './core/args/material.js';
+import { temperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import { defineMatrix } from './core/define.js';
 
 export const BAND = defineMatrix({

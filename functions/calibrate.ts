@@ -1,30 +1,34 @@
 // @load on-first-call
 /**
- * Datasheet calibration and the DMA fit: a parameter block that reproduces the user's numbers, and
- * the table that shows how well. In Excel this file is loaded on the first call of one of its
- * functions (the least-squares engine is too big for the start-up script; see scripts/build/20-functions.mjs).
+ * Datasheet calibration: a parameter block that reproduces the user's numbers, and the table that
+ * shows how well. In Excel this file is loaded on the first call of one of its functions (the
+ * least-squares engine is too big for the start-up script; see scripts/build/20-functions.mjs).
  */
 import {
   calibrateDatasheet,
   calibrationCheckRows,
-  fitDma,
+  checkHdtOrder,
+  checkMelting,
+  HDT_METHODS,
   InputError,
   KELVIN_OFFSET,
+  kelvinToC,
   type CalibrationResult,
   type DatasheetInputs,
+  type HdtPoint,
   type MaterialParams,
   type NumericField,
 } from '../src/index.js';
-import { modulus, optionalTemperature, problem, start, time } from './core/args.js';
+import { fields } from './core/args/fields.js';
+import { start } from './core/args/material.js';
+import { modulus } from './core/args/modulus.js';
+import { fromInput, problem } from './core/args/spec.js';
+import { glassTransition, hdtTemperature, melting, optionalTemperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import { BLOCK_COLUMNS, BLOCK_ROWS } from './core/block.js';
 import type { OutCell } from './core/cells.js';
 import { defineMatrix } from './core/define.js';
-import { fields, frequency, sweep } from './core/fitargs.js';
-import { BLOCK_COMMENT_ROWS, FIT_CAUTION, fittedBlock, freeText, notesText, QUALITY_MEANING, sig } from './core/fitout.js';
-
-/** ISO 75-2 method stresses: A 1.80 MPa, B 0.45 MPa (ISO 75-2:2013, clause 4). */
-const HDT_A_MPA = 1.8;
-const HDT_B_MPA = 0.45;
+import { fittedBlock, FIT_CAUTION, BLOCK_COMMENT_ROWS, freeText, notesText, QUALITY_MEANING, sig } from './core/fitout.js';
 /** Time and temperature of a creep modulus when only the modulus is given: the 1000 h, 23 degC creep modulus of ISO 899-1 data sheets (common practice). */
 const CREEP_DEFAULT_TIME_S = 1000 * 3600;
 const CREEP_DEFAULT_TEMP_K = 23 + KELVIN_OFFSET;
@@ -43,10 +47,10 @@ const ARGUMENT: Record<string, string> = {
 const CALIBRATE_ARGS = [
   start('start'),
   modulus('modulus23', { optional: true }),
-  optionalTemperature('hdt_a'),
-  optionalTemperature('hdt_b'),
-  optionalTemperature('tg'),
-  optionalTemperature('tm'),
+  hdtTemperature('hdt_a'),
+  hdtTemperature('hdt_b'),
+  glassTransition('tg'),
+  melting('tm'),
   time('creep_time', { optional: true }),
   optionalTemperature('creep_temp'),
   modulus('creep_modulus', { optional: true }),
@@ -77,14 +81,21 @@ function runCalibration(...[p, m23, hdtA, hdtB, tg, tm, creepT, creepK, creepE, 
       `is missing: ${creepT !== undefined ? 'creep_time' : 'creep_temp'} is given, so give the creep modulus measured there (or clear it)`,
     );
   }
+  // The same checks as the CLI and the pane make (src/input/); a value is shown in degC as the sheet holds it.
+  const typed = (K: number): number => Math.round(kelvinToC(K) * 1e9) / 1e9;
+  const hdt: HdtPoint[] = [
+    ...(hdtA !== undefined ? [{ stressMPa: HDT_METHODS.A, temperatureK: hdtA, raw: typed(hdtA), name: 'hdt_a' }] : []),
+    ...(hdtB !== undefined ? [{ stressMPa: HDT_METHODS.B, temperatureK: hdtB, raw: typed(hdtB), name: 'hdt_b' }] : []),
+  ];
+  fromInput(() => {
+    checkHdtOrder(hdt);
+    if (tm !== undefined) checkMelting(tm, typed(tm), tg, p, 'tm');
+  });
   const inputs: DatasheetInputs = {
     ...(m23 !== undefined ? { modulus23MPa: m23 } : {}),
     ...(tg !== undefined ? { TgK: tg } : {}),
     ...(tm !== undefined ? { TmK: tm } : {}),
-    hdt: [
-      ...(hdtA !== undefined ? [{ stressMPa: HDT_A_MPA, temperatureK: hdtA }] : []),
-      ...(hdtB !== undefined ? [{ stressMPa: HDT_B_MPA, temperatureK: hdtB }] : []),
-    ],
+    hdt: hdt.map((h) => ({ stressMPa: h.stressMPa, temperatureK: h.temperatureK })),
     moduli:
       creepE === undefined
         ? []
@@ -205,28 +216,4 @@ export function calcheck(
   free?: unknown[][],
 ) {
   return CALCHECK.invoke(start, modulus23, hdt_a, hdt_b, tg, tm, creep_time, creep_temp, creep_modulus, free);
-}
-
-export const DMAFIT = defineMatrix({
-  id: 'DMAFIT',
-  args: [start('start'), sweep('sweep_range'), frequency('frequency_Hz'), fields('free')],
-  spillSize: () => [BLOCK_ROWS + BLOCK_COMMENT_ROWS, BLOCK_COLUMNS],
-  run: (p, sw, hz, free) => {
-    const r = fitDma(p, sw, { frequencyHz: hz, ...(free ? { free } : {}) });
-    const text = `storage modulus at ${hz} Hz: RMS ${sig(r.rmsLog10)} decades, largest ${sig(r.maxLog10)} decades over ${r.points} points (good up to 0.02, fair up to 0.05); fitted ${freeText(r.free)}; ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`;
-    return fittedBlock(r.params, r.free, r.quality, text, r.notes);
-  },
-});
-
-/**
- * Spills the parameter block fitted to a DMA storage-modulus temperature sweep (PARAMS layout, usable as a material), with fit quality and notes below. Screening estimate.
- * @customfunction DMAFIT
- * @param start Starting point: family symbol such as "PC", or a parameter block range from DERATE.PARAMS.
- * @param sweep_range DMA table range: header temperature_C, storage_MPa (other units in the header, e.g. storage_GPa), temperatures increasing.
- * @param frequency_Hz Test frequency of the sweep, Hz (a number, or text such as "1 Hz").
- * @param [free] Parameter names to fit instead of the automatic choice, such as "Tg_C, beta" (or a range of names).
- * @returns {any[][]} Parameter block (field, value, unit, description), then rows starting with # for quality, fit, notes and caution.
- */
-export function dmafit(start: unknown[][], sweep_range: unknown[][], frequency_Hz: unknown, free?: unknown[][]) {
-  return DMAFIT.invoke(start, sweep_range, frequency_Hz, free);
 }

@@ -1,6 +1,6 @@
 /** The bundled family table and the editable parameter block of one family. */
 import { FAMILIES } from '../src/index.js';
-import { family } from './core/args.js';
+import { family } from './core/args/material.js';
 import { BLOCK_COLUMNS, BLOCK_ROWS, paramsBlock } from './core/block.js';
 import type { OutCell } from './core/cells.js';
 import { defineMatrix } from './core/define.js';

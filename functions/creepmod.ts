@@ -5,7 +5,9 @@
  * start-up script over its gzip budget (see scripts/build/20-functions.mjs).
  */
 import { creepModulusMPa } from '../src/index.js';
-import { material, temperature, time } from './core/args.js';
+import { material } from './core/args/material.js';
+import { temperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import { defineScalar } from './core/define.js';
 
 export const CREEPMOD = defineScalar({

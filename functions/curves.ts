@@ -12,6 +12,7 @@ import {
   pronyToTable,
   qualityFromRmsLog10,
   shiftCurves,
+  termsPerDecadeInput,
   wlfLog10,
   type CurveFit,
   type CurveSet,
@@ -19,10 +20,11 @@ import {
   type PronyMaterialSpec,
   type ShiftLawFit,
 } from '../src/index.js';
-import { count, optionalTemperature } from './core/args.js';
+import { count } from './core/args/count.js';
+import { optionalTemperature } from './core/args/temperature.js';
 import type { OutCell } from './core/cells.js';
 import { defineMatrix, type ArgShape } from './core/define.js';
-import { curves } from './core/fitargs.js';
+import { curves } from './core/args/tables.js';
 import { commentRows, FIT_CAUTION, notesText, QUALITY_MEANING, sig } from './core/fitout.js';
 
 const RANK: Record<FitQuality, number> = { good: 0, fair: 1, poor: 2 };
@@ -59,7 +61,7 @@ export const FITCURVES = defineMatrix({
     curves('data_range'),
     optionalTemperature('tg'),
     optionalTemperature('reference'),
-    count('terms_per_decade', 1, 10, { optional: true }),
+    count('terms_per_decade', termsPerDecadeInput, { optional: true }),
   ],
   spillSize: ([data]) => {
     const n = dataRows(data);

@@ -1,18 +1,19 @@
 /** Duty cycles: the equivalent time of a repeated temperature history and the modulus after it. */
-import { equivalentTimeS, modulusAfterHistory, SECONDS_PER_HOUR, type Segment } from '../src/index.js';
-import { cycles, durations, material, optionalTemperature, temperatures } from './core/args.js';
+import { checkHistory, equivalentTimeS, modulusAfterHistory, pairSegments, SECONDS_PER_HOUR, type Segment } from '../src/index.js';
+import { cycles } from './core/args/count.js';
+import { material } from './core/args/material.js';
+import { durations, temperatures } from './core/args/ranges.js';
+import { fromInput } from './core/args/spec.js';
+import { optionalTemperature } from './core/args/temperature.js';
 import { defineScalar } from './core/define.js';
-import { ArgumentProblem } from './core/errors.js';
 
-function segmentsOf(temperaturesK: readonly number[], durationsS: readonly number[]): Segment[] {
-  if (temperaturesK.length !== durationsS.length) {
-    throw new ArgumentProblem(
-      '#VALUE!',
-      'durations',
-      `needs one duration per temperature: got ${durationsS.length} durations for ${temperaturesK.length} temperatures`,
-    );
-  }
-  return temperaturesK.map((TK, i) => ({ TK, dtS: durationsS[i] ?? 0 }));
+/** The segments of a history repeated n times, checked by the input layer (same lengths, whole history in the model's time range). */
+function segmentsOf(temperaturesK: readonly number[], durationsS: readonly number[], n: number): Segment[] {
+  return fromInput(() => {
+    const segments = pairSegments(temperaturesK, durationsS, 'durations');
+    checkHistory(segments, n, { cycles: 'cycles', durations: 'durations' });
+    return segments;
+  });
 }
 
 function hottest(segments: readonly Segment[]): number {
@@ -29,7 +30,7 @@ export const EQTIME = defineScalar({
     cycles('cycles', { optional: true, default: 1 }),
   ],
   run: (m, TK, dt, refK, n) => {
-    const segments = segmentsOf(TK, dt);
+    const segments = segmentsOf(TK, dt, n);
     return equivalentTimeS(m, segments, refK ?? hottest(segments), n) / SECONDS_PER_HOUR;
   },
 });
@@ -64,7 +65,7 @@ export const DUTY = defineScalar({
     optionalTemperature('at_temperature'),
   ],
   run: (m, TK, dt, n, atK) => {
-    const segments = segmentsOf(TK, dt);
+    const segments = segmentsOf(TK, dt, n);
     return modulusAfterHistory(m, segments, n, atK ?? hottest(segments)).modulusMPa;
   },
 });

@@ -1,6 +1,7 @@
 /** A simulated ISO 75 heat deflection test through the model. */
 import { simulateHdt } from '../src/index.js';
-import { material, testStress } from './core/args.js';
+import { material } from './core/args/material.js';
+import { testStress } from './core/args/modulus.js';
 import { SheetError } from './core/cells.js';
 import { defineScalar } from './core/define.js';
 

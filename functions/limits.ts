@@ -1,6 +1,9 @@
 /** Inverse answers: the highest temperature and the longest time for which a required stiffness holds. */
 import { kelvinToC, maxTemperatureK, maxTimeS, SECONDS_PER_HOUR, SECONDS_PER_YEAR, TEMP_SEARCH_K, TIME_SEARCH_S } from '../src/index.js';
-import { material, modulus, temperature, time } from './core/args.js';
+import { material } from './core/args/material.js';
+import { modulus } from './core/args/modulus.js';
+import { temperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import { SheetError } from './core/cells.js';
 import { defineScalar } from './core/define.js';
 

@@ -1,6 +1,9 @@
 /** Stiffness at one service condition: the relaxation modulus, the stress it leaves at a fixed strain, and the derating ratio. */
 import { deratingRatio, modulusMPa } from '../src/index.js';
-import { material, strain, temperature, time } from './core/args.js';
+import { material } from './core/args/material.js';
+import { strain } from './core/args/strain.js';
+import { temperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import { defineScalar } from './core/define.js';
 
 export const MODULUS = defineScalar({

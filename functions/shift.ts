@@ -1,6 +1,8 @@
 /** The time-temperature shift of a material and the apparent Tg at a time scale. */
 import { apparentTgK, kelvinToC, materialShiftLog10 } from '../src/index.js';
-import { material, temperature, time } from './core/args.js';
+import { material } from './core/args/material.js';
+import { temperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import { SheetError } from './core/cells.js';
 import { defineScalar } from './core/define.js';
 

@@ -1,6 +1,10 @@
 /** Spilled tables for a review or a chart: a derating grid and a modulus-temperature curve. */
-import { deratingTable, kelvinToC, modulusMPa } from '../src/index.js';
-import { count, material, materials, temperature, temperatures, time } from './core/args.js';
+import { CURVE_POINTS, curvePointsInput, decimalNumber, deratingTable, kelvinToC, modulusMPa } from '../src/index.js';
+import { count } from './core/args/count.js';
+import { material, materials } from './core/args/material.js';
+import { temperatures } from './core/args/ranges.js';
+import { temperature } from './core/args/temperature.js';
+import { time } from './core/args/time.js';
 import type { OutCell } from './core/cells.js';
 import { defineMatrix, listLength } from './core/define.js';
 import { ArgumentProblem } from './core/errors.js';
@@ -41,11 +45,17 @@ export function grid(materials: unknown[][], temperatures: unknown[][], time: un
 
 export const CURVE = defineMatrix({
   id: 'CURVE',
-  args: [material('material'), temperature('from_temperature'), temperature('to_temperature'), count('points', 2, 1000), time('time')],
+  args: [
+    material('material'),
+    temperature('from_temperature'),
+    temperature('to_temperature'),
+    count('points', curvePointsInput),
+    time('time'),
+  ],
   spillSize: (shapes) => {
     const points = shapes[3]?.literal;
-    const n = typeof points === 'number' ? points : typeof points === 'string' ? Number(points) : NaN;
-    return Number.isInteger(n) && n >= 2 && n <= 1000 ? [n + 1, 2] : undefined;
+    const n = typeof points === 'number' ? points : typeof points === 'string' ? (decimalNumber(points) ?? NaN) : NaN;
+    return Number.isInteger(n) && n >= CURVE_POINTS[0] && n <= CURVE_POINTS[1] ? [n + 1, 2] : undefined;
   },
   run: (m, fromK, toK, n, tS) => {
     if (!(toK > fromK)) {

@@ -80,6 +80,6 @@ describe('resin-derate calibration commands', () => {
     expect(r.stderr).toMatch(/row 3, modulus_MPa: 'NaN' is not a number/);
     const c = spawnSync('node', [BIN, 'calibrate', '--family', 'PC', '--tm', '250'], { encoding: 'utf8' });
     expect(c.status).toBe(2);
-    expect(c.stderr).toMatch(/^resin-derate calibrate: --tm: is only used for semi-crystalline/);
+    expect(c.stderr).toMatch(/^resin-derate calibrate: --tm: is only used for semi-crystalline materials and PC is amorphous/);
   });
 });

@@ -3,7 +3,7 @@
  * must come back as a worksheet error (never a throw, never a number) whose message names the argument.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { ArgKind, ArgSpec } from '../functions/core/args.js';
+import type { ArgKind, ArgSpec } from '../functions/core/args/spec.js';
 import { SheetError, type ErrorCode } from '../functions/core/cells.js';
 import type { FunctionDef } from '../functions/core/define.js';
 import { loadFunctions } from './support/functions.js';

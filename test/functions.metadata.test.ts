@@ -130,6 +130,16 @@ describe('documentation and tests for every function', () => {
     expect(section).toMatch(/licensed engineering review/);
   });
 
+  it('keeps every function in the file the table of functions/README.md names', () => {
+    const text = readFileSync('functions/README.md', 'utf8');
+    const table = new Map<string, string>();
+    for (const m of text.matchAll(/^\| `([a-z]+\.ts)` \| ((?:`[A-Z]+`(?:, )?)+)/gm)) {
+      for (const id of (m[2] ?? '').matchAll(/`([A-Z]+)`/g)) table.set(id[1] ?? '', `functions/${m[1]}`);
+    }
+    const actual = new Map(associate.map((a) => [a.id, a.sourceFileName]));
+    expect(Object.fromEntries(table)).toEqual(Object.fromEntries(actual));
+  });
+
   it('has a test that calls every function', () => {
     for (const d of defs) expect(tests, `a test of DERATE.${d.id}`).toContain(`DERATE.${d.id}(`);
   });

@@ -21,7 +21,7 @@
  */
 import fc from 'fast-check';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { ArgKind, ArgSpec } from '../functions/core/args.js';
+import type { ArgKind, ArgSpec } from '../functions/core/args/spec.js';
 import { foreignError, SheetError } from '../functions/core/cells.js';
 import { definition, type ArgShape, type FunctionDef } from '../functions/core/define.js';
 import { officeFunction, type CustomFunctionsRuntime } from '../functions/host/office.js';

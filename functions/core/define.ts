@@ -3,7 +3,7 @@
  * one registry, which the hosts (Office, HyperFormula, tests) read; the worksheet id is pinned here and
  * in the JSDoc tag of the exported function, and a test checks that the two agree.
  */
-import type { ArgSpec } from './args.js';
+import type { ArgSpec } from './args/spec.js';
 import { SheetError, type MatrixResult, type ScalarResult } from './cells.js';
 import { safeMatrix, safeScalar } from './errors.js';
 

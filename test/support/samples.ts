@@ -1,7 +1,7 @@
 /** A valid value for every argument kind, so a call of any worksheet function can be built from its specs. */
 import { readFileSync } from 'node:fs';
 import { parseCsv } from '../../src/index.js';
-import type { ArgKind } from '../../functions/core/args.js';
+import type { ArgKind } from '../../functions/core/args/spec.js';
 import type { FunctionDef } from '../../functions/core/define.js';
 
 export const VALID: Record<ArgKind, unknown> = {

@@ -3,11 +3,16 @@
  * calibration request (engine units), and the words for the quality of a result. Light on purpose: the
  * calibration itself (plan.ts beside it) is loaded on first use.
  */
-import type { CalibrationResult, DatasheetInputs, HdtDatum, ModulusDatum } from '../../../src/fit/calibrate.js';
+import type { CalibrationResult, DatasheetInputs, ModulusDatum } from '../../../src/fit/calibrate.js';
 import { InputError } from '../../../src/base/errors.js';
-import { getFamily, type Family } from '../../../src/material/families.js';
-import { HDT_MAX_C, HDT_METHODS, HDT_START_C } from '../../../src/answers/hdt.js';
-import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS } from '../../../src/base/units.js';
+import type { Family } from '../../../src/material/families.js';
+import { HDT_METHODS } from '../../../src/answers/hdt.js';
+import { checkMelting, glassTransitionInput, meltingInput } from '../../../src/input/datasheet.js';
+import { checkHdtOrder, hdtTemperatureInput, type HdtPoint } from '../../../src/input/hdt.js';
+import { familyInput } from '../../../src/input/material.js';
+import { modulusInput } from '../../../src/input/modulus.js';
+import { temperatureInput } from '../../../src/input/temperature.js';
+import { timeInput } from '../../../src/input/time.js';
 
 /** What the user typed, as text; empty text means "not on my datasheet". */
 export interface CalibrationFields {
@@ -52,70 +57,47 @@ function given(text: string): string | null {
   return t === '' ? null : t;
 }
 
-function hdtK(text: string, argument: string): number {
-  const K = parseTemperatureK(text, argument);
-  const C = kelvinToC(K);
-  // The simulated test starts at 23 degC and gives up at 500 degC (hdt.ts); an HDT outside cannot be met.
-  if (!(C > HDT_START_C))
-    throw new InputError(argument, `must be above ${HDT_START_C} degC, where the ISO 75 test starts; got ${text.trim()}`);
-  if (C > HDT_MAX_C) throw new InputError(argument, `must be at most ${HDT_MAX_C} degC, got ${text.trim()}`);
-  return K;
-}
-
-/** Reads the form; throws InputError naming the field (by CALIBRATION_FIELD_NAMES) for anything wrong. */
+/**
+ * Reads the form; throws InputError naming the field (by CALIBRATION_FIELD_NAMES) for anything wrong.
+ * Every value and check is the input layer's (src/input/), as in the worksheet's CALIBRATE and the CLI.
+ */
 export function readCalibration(fields: CalibrationFields): CalibrationRequest {
-  let start: Family;
-  try {
-    start = getFamily(fields.start.trim());
-  } catch (e) {
-    throw new InputError(N.start, e instanceof Error ? e.message : String(e));
-  }
-  const kind = start.params.kind;
+  const start: Family = familyInput.parse(fields.start, N.start);
   const e23 = given(fields.modulus23);
   const a = given(fields.hdtA);
   const b = given(fields.hdtB);
   const tg = given(fields.tg);
   const tm = given(fields.tm);
   const creep = given(fields.creepModulus);
-  const hdt: HdtDatum[] = [];
-  if (a !== null) hdt.push({ stressMPa: HDT_METHODS.A, temperatureK: hdtK(a, N.hdtA) });
-  if (b !== null) hdt.push({ stressMPa: HDT_METHODS.B, temperatureK: hdtK(b, N.hdtB) });
-  const [hA, hB] = hdt;
-  if (a !== null && b !== null && hA && hB && hA.temperatureK > hB.temperatureK) {
-    throw new InputError(
-      N.hdtA,
-      `${a} is above HDT/B (${b}); the higher stress of method A always deflects at a lower temperature, so check the two values`,
-    );
-  }
-  const TgK = tg === null ? undefined : parseTemperatureK(tg, N.tg);
+  const hdt: HdtPoint[] = [];
+  if (a !== null) hdt.push({ stressMPa: HDT_METHODS.A, temperatureK: hdtTemperatureInput.parse(a, N.hdtA), raw: a, name: N.hdtA });
+  if (b !== null) hdt.push({ stressMPa: HDT_METHODS.B, temperatureK: hdtTemperatureInput.parse(b, N.hdtB), raw: b, name: N.hdtB });
+  checkHdtOrder(hdt);
+  const TgK = tg === null ? undefined : glassTransitionInput.parse(tg, N.tg);
   let TmK: number | undefined;
   if (tm !== null) {
-    if (kind !== 'semicrystalline') {
-      throw new InputError(N.tm, `is only used for semi-crystalline materials and ${start.params.id} is ${kind}; leave it empty`);
-    }
-    TmK = parseTemperatureK(tm, N.tm);
-    const TgRef = TgK ?? cToKelvin(start.params.Tg_C);
-    if (!(TmK > TgRef)) {
-      throw new InputError(
-        N.tm,
-        `must be above Tg (${TgK === undefined ? `${start.params.id}'s ` : ''}${round(kelvinToC(TgRef))} degC), got ${tm}`,
-      );
-    }
+    TmK = meltingInput.parse(tm, N.tm);
+    checkMelting(TmK, tm, TgK, start.params, N.tm);
   }
   const moduli: ModulusDatum[] = [];
   if (creep !== null) {
-    const modulusMPa = parseStressMPa(creep, N.creepModulus);
+    const modulusMPa = modulusInput.parse(creep, N.creepModulus);
     const t = given(fields.creepTime);
     const T = given(fields.creepTemperature);
     if (t === null) throw new InputError(N.creepTime, 'give the loading time of the creep modulus, for example 1000 h');
     if (T === null) throw new InputError(N.creepTemperature, 'give the temperature of the creep modulus, for example 23');
-    moduli.push({ kind: 'creep', modulusMPa, timeS: parseTimeS(t, N.creepTime), temperatureK: parseTemperatureK(T, N.creepTemperature) });
+    moduli.push({
+      kind: 'creep',
+      modulusMPa,
+      timeS: timeInput.parse(t, N.creepTime),
+      temperatureK: temperatureInput.parse(T, N.creepTemperature),
+    });
   }
   const inputs: DatasheetInputs = {
-    ...(e23 === null ? {} : { modulus23MPa: parseStressMPa(e23, N.modulus23) }),
+    ...(e23 === null ? {} : { modulus23MPa: modulusInput.parse(e23, N.modulus23) }),
     ...(TgK === undefined ? {} : { TgK }),
     ...(TmK === undefined ? {} : { TmK }),
-    hdt,
+    hdt: hdt.map((h) => ({ stressMPa: h.stressMPa, temperatureK: h.temperatureK })),
     moduli,
   };
   if (inputs.modulus23MPa === undefined && TgK === undefined && TmK === undefined && hdt.length === 0 && moduli.length === 0) {
@@ -124,10 +106,6 @@ export function readCalibration(fields: CalibrationFields): CalibrationRequest {
   const id = given(fields.id);
   if (id !== null && id.length > 40) throw new InputError(N.id, `use at most 40 characters, got ${id.length}`);
   return { start, inputs, id };
-}
-
-function round(x: number): number {
-  return Math.round(x * 100) / 100;
 }
 
 export const QUALITY_TEXT: Record<CalibrationResult['quality'], string> = {

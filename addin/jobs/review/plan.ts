@@ -11,7 +11,14 @@ import { VERDICT } from '../../../src/answers/verdict.js';
 import { compileMaterial, modulusMPa, type Material } from '../../../src/material/model.js';
 import type { MaterialParams } from '../../../src/material/params.js';
 import { paramsFromBlockRows } from '../../../src/material/resolve.js';
-import { cToKelvin, kelvinToC, parseStressMPa, parseTemperatureK, parseTimeS, SECONDS_PER_HOUR } from '../../../src/base/units.js';
+import { cToKelvin, kelvinToC, parseTimeS, SECONDS_PER_HOUR } from '../../../src/base/units.js';
+import { cyclesInput } from '../../../src/input/count.js';
+import { checkHistory } from '../../../src/input/cycle.js';
+import { listInput } from '../../../src/input/list.js';
+import { modulusInput } from '../../../src/input/modulus.js';
+import { readRequired } from '../../../src/input/quantity.js';
+import { temperatureInput } from '../../../src/input/temperature.js';
+import { timeInput } from '../../../src/input/time.js';
 import { cellAddress, columnName, qualified, type Box, type Cell } from '../../sheet/a1.js';
 import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from '../notes.js';
 import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from '../../sheet/port.js';
@@ -42,16 +49,11 @@ export const MAX_TEMPERATURES = 12;
 export const MAX_CANDIDATES = 10;
 export const MAX_STEPS = 12;
 
-// ---- reading what the user typed ----
+// ---- reading what the user typed (values, ranges and words from the input layer, src/input/) ----
 
 /** "23, 40, 60 degC, 176 degF" -> degC numbers, ascending, duplicates removed. */
 export function parseTemperatureList(text: string, argument = 'service temperatures'): number[] {
-  const parts = text
-    .split(/[,;]/)
-    .map((s) => s.trim())
-    .filter(Boolean);
-  if (parts.length === 0) throw new InputError(argument, 'give at least one temperature, for example 23, 40, 60, 80');
-  const list = parts.map((p) => round6(kelvinToC(parseTemperatureK(p, argument))));
+  const list = readRequired(listInput(temperatureInput), text, argument).map((K) => round6(kelvinToC(K)));
   const unique = [...new Set(list)].sort((a, b) => a - b);
   if (unique.length > MAX_TEMPERATURES)
     throw new InputError(argument, `give at most ${MAX_TEMPERATURES} temperatures, got ${unique.length}`);
@@ -65,24 +67,25 @@ function round6(x: number): number {
 /** A service time as it will sit in its cell: a bare number stays a number (hours), text keeps its unit. */
 export function parseServiceTime(text: string): string | number {
   const t = text.trim();
-  parseTimeS(t, 'service time');
+  readRequired(timeInput, t, 'service time');
   const n = Number(t);
   return Number.isFinite(n) ? n : t;
 }
 
+/** The required modulus, MPa. */
 export function parseRequired(text: string): number {
-  return parseStressMPa(text.trim(), 'required modulus');
+  return readRequired(modulusInput, text.trim(), 'required modulus');
 }
 
 export function checkCycle(steps: readonly CycleStep[], cycles: number): void {
   if (steps.length === 0) throw new InputError('duty cycle', 'add at least one step (a temperature and its hours per cycle)');
   if (steps.length > MAX_STEPS) throw new InputError('duty cycle', `use at most ${MAX_STEPS} steps, got ${steps.length}`);
-  steps.forEach((s, i) => {
-    parseTemperatureK(s.temperatureC, `duty cycle step ${i + 1} temperature`);
-    if (!(s.hours > 0) || !Number.isFinite(s.hours))
-      throw new InputError(`duty cycle step ${i + 1} hours`, `must be a positive number of hours, got ${s.hours}`);
-  });
-  if (!(cycles >= 1) || !Number.isFinite(cycles)) throw new InputError('cycles', `must be a number of at least 1, got ${cycles}`);
+  const segments = steps.map((s, i) => ({
+    TK: temperatureInput.parse(s.temperatureC, `duty cycle step ${i + 1} temperature`),
+    dtS: timeInput.parse(s.hours, `duty cycle step ${i + 1} hours`),
+  }));
+  cyclesInput.parse(cycles, 'cycles');
+  checkHistory(segments, cycles, { cycles: 'cycles', durations: 'duty cycle' });
 }
 
 /**
@@ -118,10 +121,10 @@ export function checkReview(input: ReviewInput): void {
   if (input.candidates.length === 0) throw new InputError('candidates', 'add at least one family or parameter block');
   if (input.candidates.length > MAX_CANDIDATES) throw new InputError('candidates', `use at most ${MAX_CANDIDATES} candidates`);
   if (input.temperaturesC.length === 0) throw new InputError('service temperatures', 'give at least one temperature');
-  for (const t of input.temperaturesC) parseTemperatureK(t, 'service temperatures');
-  if (input.load.kind === 'time') parseTimeS(input.load.time, 'service time');
+  for (const t of input.temperaturesC) temperatureInput.parse(t, 'service temperatures');
+  if (input.load.kind === 'time') timeInput.parse(input.load.time, 'service time');
   else checkCycle(input.load.steps, input.load.cycles);
-  parseStressMPa(input.requiredMPa, 'required modulus');
+  modulusInput.parse(input.requiredMPa, 'required modulus');
   input.candidates.forEach((c) => {
     try {
       material(c);
