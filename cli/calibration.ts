@@ -71,13 +71,14 @@ const MODULUS_POINT = 'TIME@TEMPERATURE:MODULUS items such as "1000 h@23 degC:19
 const FIELD_NAMES: readonly string[] = NUMERIC_FIELDS.map((f) => f.key);
 
 /** --free: parameter names, each checked here so that a typo reads as one rather than as a fitting problem. */
-function freeFields(text: string | undefined): NumericField[] {
+function freeFields(text: string | undefined): NumericField[] | undefined {
   const names = list(text);
   for (const name of names) {
     if (!FIELD_NAMES.includes(name))
       throw new InputError('--free', `'${name}' is not a parameter name; the names are ${FIELD_NAMES.join(', ')}`);
   }
-  return names as NumericField[];
+  // No names: the automatic choice of the fitting code.
+  return names.length > 0 ? (names as NumericField[]) : undefined;
 }
 
 /** The datasheet options of calibrate, by the engine's name of the input each gives. */
@@ -135,20 +136,6 @@ function hdtPoints(text: string | undefined): HdtPoint[] {
     }),
   );
 }
-
-/** The engine's argument names in a calibration, as the CLI's options. */
-const CALIBRATE_OPTION: Readonly<Record<string, string>> = {
-  start: '--family',
-  modulus23: '--modulus23',
-  Tg: '--tg',
-  Tm: '--tm',
-  hdt: '--hdt',
-  free: '--free',
-  inputs: 'datasheet options',
-  'creep modulus': '--creep',
-  'creep time': '--creep',
-  'creep temperature': '--creep',
-};
 
 /** Runs an engine call whose InputErrors name engine words; they come back naming the CLI option. */
 function asOptions<T>(names: Readonly<Record<string, string>>, f: () => T): T {
@@ -230,7 +217,8 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       };
       const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
-      const r = asOptions(CALIBRATE_OPTION, () => calibrateDatasheet(start, inputs, { ...(free ? { free } : {}), ...(id ? { id } : {}) }));
+      // Engine names of the inputs become options through this command's `names` table (cli/failure.ts).
+      const r = calibrateDatasheet(start, inputs, { ...(free ? { free } : {}), ...(id ? { id } : {}) });
       const data = {
         params: paramsToRecord(r.params),
         free: r.free,

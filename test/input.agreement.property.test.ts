@@ -332,7 +332,9 @@ function agree(label: string, ws: unknown, c: CliAnswer, key: string, names: Rea
     const m = /^([a-z_]+): (.*)$/s.exec(ws.message);
     expect(m, `${label}: ${ws.message}`).not.toBeNull();
     expect(c.option, label).toBe(names[m?.[1] ?? '']);
-    expect(c.problem, label).toBe(oneLine(m?.[2] ?? ''));
+    // The CLI prints every failure on one line, so a tab, newline or other control character the user typed shows as a space there.
+    const plain = (t: string): string => t.replace(/[\s\u0000-\u001f\u007f]/g, ' ');
+    expect(plain(c.problem ?? ''), label).toBe(plain(oneLine(m?.[2] ?? '')));
     return;
   }
   expect(c.code, `${label}: the worksheet answers ${String(ws)}, the CLI says ${c.problem}`).toBe(0);
