@@ -6,12 +6,12 @@ import { InputError, SolverError } from '../base/errors.js';
 import { modulusMPa, type Material } from '../material/model.js';
 import { brentRoot, ROOT_REL_TOL } from '../numeric/roots.js';
 import { shiftLog10, temperatureForShiftK, WLF_SINGULARITY_MARGIN_K } from '../material/shift.js';
-import { KELVIN_OFFSET, SECONDS_PER_YEAR } from '../base/units.js';
+import { MODEL_TEMPERATURE_K, MODEL_TIME_S } from '../base/units.js';
 
-/** Temperature search range of MAXTEMP, kelvin: -150 degC to 500 degC. */
-export const TEMP_SEARCH_K: readonly [number, number] = [-150 + KELVIN_OFFSET, 500 + KELVIN_OFFSET];
-/** Time search range of MAXTIME, seconds: 1 ms to 100 Julian years. */
-export const TIME_SEARCH_S: readonly [number, number] = [1e-3, 100 * SECONDS_PER_YEAR];
+/** Temperature search range of MAXTEMP, kelvin: the model's range, -150 degC to 500 degC. */
+export const TEMP_SEARCH_K: readonly [number, number] = MODEL_TEMPERATURE_K;
+/** Time search range of MAXTIME, seconds: the model's range, 1 ms to 100 Julian years. */
+export const TIME_SEARCH_S: readonly [number, number] = MODEL_TIME_S;
 /** Points of the coarse scan used where E(T) is not monotone (a crosslinked rubber's entropic rise). */
 const SCAN_POINTS = 64;
 
