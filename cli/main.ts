@@ -1,7 +1,7 @@
 /** The `resin-derate` command line: the engine's answers as text tables or JSON. */
 import { parseArgs } from 'node:util';
 import {
-  apparentTgK,
+  apparentTg,
   bandEstimate,
   checkStrain,
   checkTemperatureInDomain,
@@ -156,8 +156,12 @@ const COMMANDS: Record<string, Command> = {
       const req = parseStressMPa(str(v, 'modulus'), '--modulus');
       const tS = parseTimeS(str(v, 'time'), '--time');
       const a = maxTemperatureK(m, req, tS);
-      const T = a.value === null ? null : kelvinToC(a.value);
-      const note = inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
+      const T = a.value === null || a.status === 'below-between' ? null : kelvinToC(a.value);
+      const below = a.below?.map((K) => sig(kelvinToC(K), 4));
+      const note =
+        a.status === 'below-between'
+          ? `below the required modulus from ${below?.[0]} to ${below?.[1]} degC only (the network stiffens as it warms)`
+          : inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
       emit(
         out,
         v,
@@ -196,9 +200,10 @@ const COMMANDS: Record<string, Command> = {
     run(v, out) {
       const m = materialFrom(v);
       const tS = parseTimeS(str(v, 'time'), '--time');
-      const TK = apparentTgK(m, tS);
-      const T = TK === null ? null : kelvinToC(TK);
-      emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${sig(T, 4)} degC\n`);
+      const a = apparentTg(m, tS);
+      const T = a.valueK === null ? null : kelvinToC(a.valueK);
+      const outside = `outside the model's range (${a.status === 'above-range' ? 'above 500' : 'below -150'} degC)\n`;
+      emit(out, v, { temperature_C: T, status: a.status }, T === null ? outside : `${sig(T, 4)} degC\n`);
     },
   },
   eqtime: {

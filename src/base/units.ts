@@ -49,74 +49,78 @@ export const MODEL_TIME_S: readonly [number, number] = [1e-3, 100 * SECONDS_PER_
 export type UnitQuantity = 'temperature' | 'time' | 'stress';
 
 /**
- * Unit words and symbols read in any case: none of them changes meaning with case in the quantity it
+ * Unit words and symbols read in any case (a Map, so that typed text such as '__proto__' finds nothing): none of them changes meaning with case in the quantity it
  * is used for ('H' is not a time unit, 'k' alone not a temperature unit, 'GPA' has no other reading),
  * so folding is safe. Keys are lower case.
  */
-const FOLDED: Record<string, string> = {
-  '°c': 'degC',
-  '℃': 'degC',
-  degc: 'degC',
-  'deg c': 'degC',
-  c: 'degC',
-  celsius: 'degC',
-  'degree celsius': 'degC',
-  'degrees celsius': 'degC',
-  '°f': 'degF',
-  '℉': 'degF',
-  degf: 'degF',
-  'deg f': 'degF',
-  f: 'degF',
-  fahrenheit: 'degF',
-  'degree fahrenheit': 'degF',
-  'degrees fahrenheit': 'degF',
-  k: 'K',
-  kelvin: 'K',
-  kelvins: 'K',
-  h: 'h',
-  hr: 'h',
-  hrs: 'h',
-  hour: 'h',
-  hours: 'h',
-  s: 's',
-  sec: 's',
-  secs: 's',
-  second: 's',
-  seconds: 's',
-  min: 'min',
-  mins: 'min',
-  minute: 'min',
-  minutes: 'min',
-  d: 'd',
-  day: 'day',
-  days: 'day',
-  wk: 'week',
-  week: 'week',
-  weeks: 'week',
-  y: 'y',
-  yr: 'y',
-  yrs: 'y',
-  year: 'year',
-  years: 'year',
-  pa: 'Pa',
-  kpa: 'kPa',
-  gpa: 'GPa',
-  psi: 'psi',
-  ksi: 'ksi',
-  'n/mm2': 'MPa',
-  'n/mm^2': 'MPa',
-  'n/mm²': 'MPa',
-};
+const FOLDED = new Map<string, string>(
+  Object.entries({
+    '°c': 'degC',
+    '℃': 'degC',
+    degc: 'degC',
+    'deg c': 'degC',
+    c: 'degC',
+    celsius: 'degC',
+    'degree celsius': 'degC',
+    'degrees celsius': 'degC',
+    '°f': 'degF',
+    '℉': 'degF',
+    degf: 'degF',
+    'deg f': 'degF',
+    f: 'degF',
+    fahrenheit: 'degF',
+    'degree fahrenheit': 'degF',
+    'degrees fahrenheit': 'degF',
+    k: 'K',
+    kelvin: 'K',
+    kelvins: 'K',
+    h: 'h',
+    hr: 'h',
+    hrs: 'h',
+    hour: 'h',
+    hours: 'h',
+    s: 's',
+    sec: 's',
+    secs: 's',
+    second: 's',
+    seconds: 's',
+    min: 'min',
+    mins: 'min',
+    minute: 'min',
+    minutes: 'min',
+    d: 'd',
+    day: 'day',
+    days: 'day',
+    wk: 'week',
+    week: 'week',
+    weeks: 'week',
+    y: 'y',
+    yr: 'y',
+    yrs: 'y',
+    year: 'year',
+    years: 'year',
+    pa: 'Pa',
+    kpa: 'kPa',
+    gpa: 'GPa',
+    psi: 'psi',
+    ksi: 'ksi',
+    'n/mm2': 'MPa',
+    'n/mm^2': 'MPa',
+    'n/mm²': 'MPa',
+  }),
+);
 
 /**
  * Spellings whose meaning hangs on the case of an SI prefix (SI Brochure 9th ed. 2019, 3.1: prefix
  * symbols are case-sensitive; M mega, m milli). Only the exact SI symbols are read; any other case of
  * them is refused rather than guessed ('1 Ms' is a megasecond, '800 mPa' is 0.0008 MPa).
  */
-const PREFIX_CASE: Record<string, { exact: readonly string[]; say: string }> = {
-  mpa: { exact: ['MPa', 'mPa'], say: "'MPa' (megapascal) or 'mPa' (millipascal)" },
-  ms: { exact: ['ms', 'Ms'], say: "'ms' (millisecond) or 'Ms' (megasecond)" },
-};
+const PREFIX_CASE = new Map<string, { exact: readonly string[]; say: string }>(
+  Object.entries({
+    mpa: { exact: ['MPa', 'mPa'], say: "'MPa' (megapascal) or 'mPa' (millipascal)" },
+    ms: { exact: ['ms', 'Ms'], say: "'ms' (millisecond) or 'Ms' (megasecond)" },
+  }),
+);
 
 const BASE: Record<UnitQuantity, { unit: string; word: string; name: string; examples: string }> = {
   temperature: { unit: 'K', word: 'a temperature unit', name: 'a temperature', examples: "'80 degC', '176 degF' or '350 K'" },
@@ -134,12 +138,12 @@ const DECIMAL_COMMA = /^[-+]?\d+,\d+(?:[eE][-+]?\d+)?(?:\s|$)/;
 /** The engine unit a typed unit text stands for: exact SI symbols first, then the case-safe words. */
 function canonicalUnit(unitText: string, text: string, argument: string): string {
   const lower = unitText.toLowerCase();
-  const prefixed = PREFIX_CASE[lower];
+  const prefixed = PREFIX_CASE.get(lower);
   if (prefixed) {
     if (prefixed.exact.includes(unitText)) return unitText;
     throw new InputError(argument, `'${unitText}' in '${text}' is ambiguous: unit prefixes are case-sensitive; write ${prefixed.say}`);
   }
-  return FOLDED[lower] ?? unitText;
+  return FOLDED.get(lower) ?? unitText;
 }
 
 /**
