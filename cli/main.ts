@@ -10,6 +10,7 @@ import {
   deratingTable,
   equivalentTimeS,
   FAMILIES,
+  hottestK,
   InputError,
   isPronySpec,
   pronyToRecord,
@@ -222,23 +223,22 @@ const COMMANDS: Record<string, Command> = {
       const cycles = v['cycles'] === undefined ? 1 : Number(v['cycles']);
       if (!Number.isFinite(cycles) || cycles <= 0)
         throw new InputError('--cycles', `must be a positive number, got '${String(v['cycles'])}'`);
-      const refK =
-        v['ref'] === undefined
-          ? Math.max(...segments.map((s) => s.TK))
-          : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
-      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
-      const after = modulusAfterHistory(m, segments, cycles, refK);
+      const refK = v['ref'] === undefined ? undefined : checkTemperatureInDomain(m, parseTemperatureK(str(v, 'ref'), '--ref'), '--ref');
+      const names = { ref_temperature: '--ref', temperatures: '--cycle', durations: '--cycle', cycles: '--cycles' };
+      const teq = renamed(names, () => equivalentTimeS(m, segments, refK, cycles));
+      const after = renamed(names, () => modulusAfterHistory(m, segments, cycles, refK));
+      const refC = kelvinToC(refK ?? hottestK(segments));
       emit(
         out,
         v,
         {
           equivalent_time_s: teq,
           equivalent_time_h: teq / 3600,
-          ref_temperature_C: kelvinToC(refK),
+          ref_temperature_C: refC,
           modulus_MPa: after.modulusMPa,
           region: after.region,
         },
-        `${sig(teq / 3600, 4)} h at ${sig(kelvinToC(refK), 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+        `${sig(teq / 3600, 4)} h at ${sig(refC, 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
       );
     },
   },
@@ -287,7 +287,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = parseTimeS(str(v, 'time'), '--time');
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = renamed({ reference: '--families', temperature: '--temps' }, () => deratingTable(ids, temps, tS));
+      const rows = renamed({ temperatures: '--temps' }, () => deratingTable(ids, temps, tS));
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,
@@ -298,7 +298,11 @@ const COMMANDS: Record<string, Command> = {
         return;
       }
       const header = ['family', ...temps.map((t) => `${sig(t, 4)} degC MPa`), ...temps.map((t) => `ratio ${sig(t, 4)}`)];
-      const body = rows.map((r) => [r.id, ...r.cells.map((c) => sig(c.modulusMPa)), ...r.cells.map((c) => c.ratio.toFixed(2))]);
+      const body = rows.map((r) => [
+        r.id,
+        ...r.cells.map((c) => sig(c.modulusMPa)),
+        ...r.cells.map((c) => (c.ratio === null ? '-' : c.ratio.toFixed(2))),
+      ]);
       out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
     },
   },

@@ -15,10 +15,6 @@ function segmentsOf(temperaturesK: readonly number[], durationsS: readonly numbe
   return temperaturesK.map((TK, i) => ({ TK, dtS: durationsS[i] ?? 0 }));
 }
 
-function hottest(segments: readonly Segment[]): number {
-  return Math.max(...segments.map((s) => s.TK));
-}
-
 export const EQTIME = defineScalar({
   id: 'EQTIME',
   args: [
@@ -30,7 +26,7 @@ export const EQTIME = defineScalar({
   ],
   run: (m, TK, dt, refK, n) => {
     const segments = segmentsOf(TK, dt);
-    return equivalentTimeS(m, segments, refK ?? hottest(segments), n) / SECONDS_PER_HOUR;
+    return equivalentTimeS(m, segments, refK, n) / SECONDS_PER_HOUR;
   },
 });
 
@@ -65,7 +61,7 @@ export const DUTY = defineScalar({
   ],
   run: (m, TK, dt, n, atK) => {
     const segments = segmentsOf(TK, dt);
-    return modulusAfterHistory(m, segments, n, atK ?? hottest(segments)).modulusMPa;
+    return modulusAfterHistory(m, segments, n, atK).modulusMPa;
   },
 });
 
