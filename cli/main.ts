@@ -287,7 +287,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = parseTimeS(str(v, 'time'), '--time');
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = renamed({ temperatures: '--temps' }, () => deratingTable(ids, temps, tS));
+      const rows = renamed({ materials: '--families', temperatures: '--temps' }, () => deratingTable(ids, temps, tS));
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,

@@ -1,9 +1,8 @@
 /** Spilled tables for a review or a chart: a derating grid and a modulus-temperature curve. */
-import { deratingTable, kelvinToC, modulusMPa } from '../src/index.js';
+import { deratingTable, kelvinToC, modulusCurve } from '../src/index.js';
 import { count, material, materials, temperature, temperatures, time } from './core/args.js';
 import type { OutCell } from './core/cells.js';
 import { defineMatrix, listLength } from './core/define.js';
-import { ArgumentProblem } from './core/errors.js';
 
 /** degC for a header, with the round-off of the kelvin round trip removed (1e-9 K). */
 function headerC(K: number): number {
@@ -48,18 +47,8 @@ export const CURVE = defineMatrix({
     return Number.isInteger(n) && n >= 2 && n <= 1000 ? [n + 1, 2] : undefined;
   },
   run: (m, fromK, toK, n, tS) => {
-    if (!(toK > fromK)) {
-      throw new ArgumentProblem(
-        '#VALUE!',
-        'to_temperature',
-        `must be above from_temperature (${headerC(fromK)} degC), got ${headerC(toK)} degC`,
-      );
-    }
     const out: OutCell[][] = [['temperature degC', 'E_r MPa']];
-    for (let i = 0; i < n; i++) {
-      const TK = fromK + ((toK - fromK) * i) / (n - 1);
-      out.push([headerC(TK), modulusMPa(m, tS, TK)]);
-    }
+    for (const [TK, E] of modulusCurve(m, fromK, toK, n, tS)) out.push([headerC(TK), E]);
     return out;
   },
 });

@@ -55,11 +55,30 @@ function columnK(m: Material, TC: number): number {
 export function deratingTable(materials: readonly MaterialInput[], temperaturesC: readonly number[], tS: number): TableRow[] {
   return materials.map((input) => {
     const m = resolveMaterial(input);
-    const ref = modulusMPa(m, RATIO_REF_S, cToKelvin(RATIO_REF_C));
+    const ref = modulusMPa(m, RATIO_REF_S, checkTemperatureInDomain(m, cToKelvin(RATIO_REF_C), 'materials'));
     const cells = temperaturesC.map((T) => {
       const e = evaluateClocks(m, tS, columnK(m, T));
       return { temperatureC: T, modulusMPa: e.modulusMPa, ratio: ref >= RELAXED_MPA ? e.modulusMPa / ref : null, region: e.region };
     });
     return { id: m.params.id, name: m.params.name, referenceMPa: ref, cells };
   });
+}
+
+/**
+ * Evenly spaced temperatures (K) from fromK to toK and the modulus (MPa) at each after time t (s), for
+ * a chart. The shift law must be defined over the whole span; the error names from_temperature, the
+ * cold end, where a pure WLF law fails first.
+ */
+export function modulusCurve(m: Material, fromK: number, toK: number, points: number, tS: number): [number, number][] {
+  if (!(toK > fromK)) {
+    const C = (K: number): number => Math.round(kelvinToC(K) * 1e9) / 1e9;
+    throw new InputError('to_temperature', `must be above from_temperature (${C(fromK)} degC), got ${C(toK)} degC`);
+  }
+  checkTemperatureInDomain(m, fromK, 'from_temperature');
+  const out: [number, number][] = [];
+  for (let i = 0; i < points; i++) {
+    const TK = fromK + ((toK - fromK) * i) / (points - 1);
+    out.push([TK, modulusMPa(m, tS, TK)]);
+  }
+  return out;
 }
