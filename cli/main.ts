@@ -269,11 +269,15 @@ const COMMANDS: Record<string, Command> = {
       const m = materialFrom(v);
       const stress = parseStressMPa(str(v, 'stress'), '--stress');
       const r = simulateHdt(m, stress);
+      const none =
+        r.status === 'rubbery-throughout'
+          ? 'does not apply: rubbery over the whole range (23 to 500 degC), not heat-proof\n'
+          : 'not reached below 500 degC\n';
       emit(
         out,
         v,
-        { temperature_C: r.temperatureC },
-        r.temperatureC === null ? 'not reached below 500 degC\n' : `${sig(r.temperatureC, 4)} degC\n`,
+        { temperature_C: r.temperatureC, status: r.status },
+        r.temperatureC === null ? none : `${sig(r.temperatureC, 4)} degC\n`,
       );
     },
   },

@@ -11,13 +11,15 @@
  * WLF (Williams, Landel, Ferry 1955) is fitted to the shifts at and above Tg, Arrhenius below, joined
  * continuously at Tg.
  */
-import { InputError } from '../base/errors.js';
+import { InputError, ParameterError } from '../base/errors.js';
 import { boundedLeastSquares } from '../numeric/lsq.js';
 import { fitProny, pronyCreepCompliance, complianceAt, qualityFromRmsLog10, type FitQuality, type PronySeries } from '../material/prony.js';
 import { nnls } from '../numeric/nnls.js';
+import { maxOf, minOf } from '../numeric/arrays.js';
 import { brentRoot } from '../numeric/roots.js';
-import type { PronyMaterialSpec } from '../material/pronymaterial.js';
-import { GAS_CONSTANT, wlfLog10, type ShiftLaw } from '../material/shift.js';
+import { compilePronyMaterial, type PronyMaterialSpec } from '../material/pronymaterial.js';
+import { fieldSpec } from '../material/params.js';
+import { GAS_CONSTANT, WLF_REF_C1_RANGE, WLF_REF_C2_RANGE_K, wlfLog10, type ShiftLaw } from '../material/shift.js';
 import type { Curve, CurveSet } from './testdata.js';
 import { KELVIN_OFFSET } from '../base/units.js';
 
@@ -76,8 +78,8 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   const Xmax = X[X.length - 1] ?? 0;
   const need = Math.max(MIN_OVERLAP_POINTS, Math.ceil(MIN_OVERLAP_SHARE * x.length));
   // A horizontal shift leaves the moduli where they are: the curves must share a range of modulus.
-  const Ylo = Math.min(...Y) - 0.02;
-  const Yhi = Math.max(...Y) + 0.02;
+  const Ylo = minOf(Y) - 0.02;
+  const Yhi = maxOf(Y) + 0.02;
   const inRange = y.filter((v) => v >= Ylo && v <= Yhi).length;
   if (inRange < need) {
     throw new InputError(
@@ -144,8 +146,12 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   return { s: use, overlap: o.n, rms: Math.sqrt(o.f) };
 }
 
-/** Shifts every curve to the temperature of one of them (default: the median temperature). */
-export function shiftCurves(set: CurveSet, referenceK?: number): { referenceK: number; shifts: CurveShift[] } {
+/**
+ * Shifts every curve to the temperature of one of them. Default: the median temperature of the curves
+ * at or above Tg when Tg (K) is given and some curve is (the WLF part is referred to the reference, so
+ * it must not lie below Tg), else the median of all.
+ */
+export function shiftCurves(set: CurveSet, referenceK?: number, TgK: number | null = null): { referenceK: number; shifts: CurveShift[] } {
   const curves = [...set.curves].sort((p, q) => p.temperatureK - q.temperatureK);
   if (curves.length < MIN_CURVES)
     throw new InputError('data', `a master curve needs curves at ${MIN_CURVES} or more temperatures, got ${curves.length}`);
@@ -157,7 +163,9 @@ export function shiftCurves(set: CurveSet, referenceK?: number): { referenceK: n
       );
     }
   }
-  let refIndex = Math.floor((curves.length - 1) / 2);
+  const firstAbove = TgK === null ? 0 : curves.findIndex((c) => c.temperatureK >= TgK);
+  const from = firstAbove < 0 ? 0 : firstAbove;
+  let refIndex = from + Math.floor((curves.length - 1 - from) / 2);
   if (referenceK !== undefined) {
     refIndex = curves.findIndex((c) => Math.abs(c.temperatureK - referenceK) < 1e-6);
     if (refIndex < 0) {
@@ -245,6 +253,12 @@ export function fitShiftLaw(shifts: readonly CurveShift[], referenceK: number, T
     C1 = fit.C1;
     C2 = fit.C2K;
     wlfFitted = true;
+    for (const name of fit.atBound) {
+      const v = name === 'C1' ? C1 : C2;
+      notes.push(
+        `${name} ended on its search bound (${Number(v.toPrecision(4))}${name === 'C1' ? '' : ' K'}); the shifts pull it further than a WLF law allows: check the curve temperatures, or give Tg so that the curves below it follow Arrhenius`,
+      );
+    }
     if (aboveData.length === 2)
       notes.push('WLF C1 and C2 rest on exactly two shifts: they fit them exactly and are not checked by a third');
   } else if (above.length > 0 && TgK !== null) {
@@ -264,14 +278,14 @@ export function fitShiftLaw(shifts: readonly CurveShift[], referenceK: number, T
       law = 'arrhenius';
       const pts = below.filter((s) => Math.abs(s.temperatureK - referenceK) > 1e-9);
       if (pts.length < 1) throw new InputError('data', 'Arrhenius needs curves at two or more temperatures');
-      Ea = arrheniusSlope(pts, referenceK, 0);
+      Ea = boundedEa(arrheniusSlope(pts, referenceK, 0), notes);
       arrFitted = true;
       notes.push('every curve is below Tg: the shift law is Arrhenius throughout (it extrapolates above Tg as Arrhenius)');
     } else {
       law = 'hybrid';
       const anchor = wlfLog10(TgK, referenceK, C1, C2 ?? 1);
       if (below.length > 0) {
-        Ea = arrheniusSlope(below, TgK, anchor);
+        Ea = boundedEa(arrheniusSlope(below, TgK, anchor), notes);
         arrFitted = true;
       } else {
         Ea = DEFAULT_EA_KJMOL;
@@ -309,6 +323,20 @@ export function fitShiftLaw(shifts: readonly CurveShift[], referenceK: number, T
   };
 }
 
+/**
+ * The fitted Ea kept inside the bounds a parameter record has (so the Prony table written from the fit
+ * reads back): the one-parameter least-squares optimum under a bound is the bound itself. A note says so.
+ */
+function boundedEa(Ea: number, notes: string[]): number {
+  const { min, max } = fieldSpec('Ea_kJmol');
+  if (Ea >= min && Ea <= max) return Ea;
+  const b = Ea < min ? min : max;
+  notes.push(
+    `Ea ended on its bound (${b} kJ/mol; the shifts alone give ${Number(Ea.toPrecision(3))} kJ/mol); check the curve temperatures and Tg`,
+  );
+  return b;
+}
+
 /** Least-squares slope k of log a = anchor + k (1/T - 1/T0), returned as Ea in kJ/mol. */
 function arrheniusSlope(pts: readonly CurveShift[], T0: number, anchor: number): number {
   let num = 0;
@@ -327,7 +355,7 @@ function arrheniusSlope(pts: readonly CurveShift[], T0: number, anchor: number):
   return Ea;
 }
 
-function fitWlf(pts: readonly CurveShift[], Tr: number): { C1: number; C2K: number } {
+function fitWlf(pts: readonly CurveShift[], Tr: number): { C1: number; C2K: number; atBound: readonly string[] } {
   // Start from the linearized form (T - Tr) / log a = -C2/C1 - (T - Tr)/C1.
   const use = pts.filter((s) => Math.abs(s.log10aT) > 1e-6);
   let C1s = 17.44;
@@ -343,22 +371,22 @@ function fitWlf(pts: readonly CurveShift[], Tr: number): { C1: number; C2K: numb
     const slope = sxx > 0 ? sxy / sxx : 0;
     const c1 = -1 / slope;
     const c2 = -(my - slope * mx) * c1;
-    if (c1 > 0.5 && c1 < 60 && c2 > 5 && c2 < 500) {
+    if (c1 > WLF_REF_C1_RANGE[0] && c1 < WLF_REF_C1_RANGE[1] && c2 > WLF_REF_C2_RANGE_K[0] && c2 < WLF_REF_C2_RANGE_K[1]) {
       C1s = c1;
       C2s = c2;
     }
   }
-  const minDT = Math.min(...pts.map((s) => s.temperatureK - Tr));
-  const c2Min = Math.max(5, -minDT + 1);
+  const minDT = minOf(pts.map((s) => s.temperatureK - Tr));
+  const c2Min = Math.max(WLF_REF_C2_RANGE_K[0], -minDT + 1);
   const r = boundedLeastSquares(
     [
-      { name: 'C1', start: C1s, min: 0.5, max: 60, log: true },
-      { name: 'C2_K', start: Math.max(C2s, c2Min + 1), min: c2Min, max: 500, log: true },
+      { name: 'C1', start: C1s, min: WLF_REF_C1_RANGE[0], max: WLF_REF_C1_RANGE[1], log: true },
+      { name: 'C2_K', start: Math.max(C2s, c2Min + 1), min: c2Min, max: WLF_REF_C2_RANGE_K[1], log: true },
     ],
     ([c1, c2]) => pts.map((s) => (wlfLog10(s.temperatureK, Tr, c1 ?? 1, c2 ?? 1) - s.log10aT) / SHIFT_TOLERANCE),
     1e-10,
   );
-  return { C1: r.values[0] ?? NaN, C2K: r.values[1] ?? NaN };
+  return { C1: r.values[0] ?? NaN, C2K: r.values[1] ?? NaN, atBound: r.atBound };
 }
 
 /** Everything fitted from a set of curves. */
@@ -399,8 +427,16 @@ function worst(...q: FitQuality[]): FitQuality {
 
 /** Master curve, shift law and Prony series from relaxation or creep curves. */
 export function fitCurves(set: CurveSet, options: CurveFitOptions = {}): CurveFit {
-  const { referenceK, shifts } = shiftCurves(set, options.referenceK);
-  const shiftLaw = fitShiftLaw(shifts, referenceK, options.TgK ?? null);
+  const tgSpec = fieldSpec('Tg_C');
+  const TgK = options.TgK ?? null;
+  if (TgK !== null && (!(TgK - KELVIN_OFFSET >= tgSpec.min) || !(TgK - KELVIN_OFFSET <= tgSpec.max))) {
+    throw new InputError(
+      'tg',
+      `${Number((TgK - KELVIN_OFFSET).toPrecision(6))} degC is outside ${tgSpec.min} to ${tgSpec.max} degC (${tgSpec.description})`,
+    );
+  }
+  const { referenceK, shifts } = shiftCurves(set, options.referenceK, TgK);
+  const shiftLaw = fitShiftLaw(shifts, referenceK, TgK);
   const master = masterPoints(set, shifts);
   const notes = [...shiftLaw.notes];
   const times = master.map((p) => p.reducedTimeS);
@@ -447,6 +483,13 @@ export function fitCurves(set: CurveSet, options: CurveFitOptions = {}): CurveFi
     C2K: shiftLaw.C2K,
     EakJmol: shiftLaw.EakJmol,
   };
+  try {
+    // What the fit writes must read back as a material (the same checks as a typed Prony table).
+    compilePronyMaterial(material);
+  } catch (e) {
+    if (e instanceof ParameterError) throw new InputError('data', `the fitted Prony table is not a valid material: ${e.message}`);
+    throw e;
+  }
   return {
     kind: set.kind,
     referenceK,
@@ -480,8 +523,8 @@ export function fitCreepToProny(
   const n = timesS.length;
   if (n < 3) throw new InputError('data', `a creep fit needs at least 3 points, got ${n}`);
   const D = creepModuliMPa.map((e) => 1 / e);
-  const lo = Math.floor(Math.log10(Math.min(...timesS)));
-  const hi = Math.ceil(Math.log10(Math.max(...timesS)));
+  const lo = Math.floor(Math.log10(minOf(timesS)));
+  const hi = Math.ceil(Math.log10(maxOf(timesS)));
   const count = Math.max(1, Math.round((hi - lo) * termsPerDecade) + 1);
   const lams = Array.from({ length: count }, (_, i) => 10 ** (count === 1 ? lo : lo + ((hi - lo) * i) / (count - 1)));
   const A = timesS.map((t, k) => {
