@@ -11,7 +11,7 @@ import { gzipSync } from 'node:zlib';
 import { functionFiles, loadsOnFirstCall } from '../functions-files.mjs';
 
 /** Size budget of the functions script (decimal kilobytes). */
-export const BUDGET = { minifiedKB: 300, gzipKB: 90 };
+export const BUDGET = { minifiedKB: 300, gzipKB: 92 };
 
 export async function functionsMetadata(files = functionFiles()) {
   const result = await generateCustomFunctionsMetadata(files);
