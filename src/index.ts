@@ -20,5 +20,6 @@ export * from './answers/creep.js';
 export * from './numeric/lsq.js';
 export * from './fit/calibrate.js';
 export * from './fit/testdata.js';
+export * from './fit/shiftlaw.js';
 export * from './fit/mastercurve.js';
 export * from './fit/dma.js';
