@@ -133,7 +133,7 @@ const DECIMAL = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
 const NUMBER_THEN_UNIT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*)$/;
 /** Number text that JavaScript would read in another base, or with a decimal comma: refused with its own message. */
 const OTHER_BASE = /^[-+]?0[xXbBoO][0-9a-fA-F_]*/;
-const DECIMAL_COMMA = /^[-+]?\d+,\d+(?:[eE][-+]?\d+)?(?:\s|$)/;
+const DECIMAL_COMMA = /^[-+]?\d+,\d/;
 
 /** The engine unit a typed unit text stands for: exact SI symbols first, then the case-safe words. */
 function canonicalUnit(unitText: string, text: string, argument: string): string {
