@@ -74,6 +74,7 @@ describe('tables and curves name their own arguments', () => {
     expect(() => modulusCurve(m, 200 + C, 150 + C, 10, H)).toThrow(
       /^to_temperature: must be above from_temperature \(200 degC\), got 150 degC/,
     );
+    expect(() => modulusCurve(resolveMaterial('PP'), 20 + C, 160 + C, 1, H)).toThrow(/^points: must be a whole number of 2 or more/);
     const rows = modulusCurve(resolveMaterial('PP'), 20 + C, 160 + C, 29, 1000 * H);
     expect(rows).toHaveLength(29);
     expectClose(rows[28]?.[1] ?? NaN, modulusMPa(resolveMaterial('PP'), 1000 * H, 160 + C), { rel: 0, source: 'same engine call' });

@@ -74,6 +74,7 @@ export function modulusCurve(m: Material, fromK: number, toK: number, points: nu
     const C = (K: number): number => Math.round(kelvinToC(K) * 1e9) / 1e9;
     throw new InputError('to_temperature', `must be above from_temperature (${C(fromK)} degC), got ${C(toK)} degC`);
   }
+  if (!Number.isInteger(points) || points < 2) throw new InputError('points', `must be a whole number of 2 or more, got ${points}`);
   checkTemperatureInDomain(m, fromK, 'from_temperature');
   const out: [number, number][] = [];
   for (let i = 0; i < points; i++) {
