@@ -127,6 +127,7 @@ describe('Prony tables obey the shift-constant bounds of parameter blocks', () =
 });
 
 describe('a Prony material beyond the reduced times of its data', () => {
+  // Reference: the band's constants are set here (band.ts PRONY_*); the central value is MODULUS itself (same engine).
   it('inside its span the band is the shift uncertainty and no note; far outside it widens and says by how much', () => {
     const m = resolveMaterial(SPEC);
     const span = pronySpanS(m);
@@ -160,6 +161,7 @@ function curves(tempsC: readonly number[]): Curve[] {
 }
 
 describe('master-curve fits stay consistent with the model', () => {
+  // Reference: WLF is referred to a temperature at or above Tg (Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 11, from memory).
   it('the default reference is at or above Tg when some curve is, so the fit never refuses its own choice', () => {
     const set = { kind: 'relaxation' as const, curves: curves([127, 132, 137, 142, 147, 152, 157]) };
     const TgK = 147 + K;
@@ -171,6 +173,7 @@ describe('master-curve fits stay consistent with the model', () => {
     expect(fit.shiftLaw.law).toBe('hybrid');
     expect(() => resolveMaterial(fit.material)).not.toThrow();
   });
+  // Reference: shifts made by the WLF closed form (Williams, Landel, Ferry 1955) with C1 beyond the search bound.
   it('a WLF fit that ends on its search bound carries a note, as calibrate and DMAFIT do', () => {
     // Shifts made by WLF with C1 = 100 (beyond the 60 bound) at a 150 degC reference.
     const ref = 150 + K;
@@ -207,12 +210,14 @@ describe('master-curve fits stay consistent with the model', () => {
 
 describe('test data outside the model range or in another notation', () => {
   const row = (T: number | string): string => `${T},1,1000\n${T},10,900\n${T},100,800\n${T},1000,700\n${T},10000,600\n`;
+  // Reference: the model's range, -150 to 500 degC (units.ts MODEL_TEMPERATURE_K, set here).
   it('refuses curve temperatures outside -150 to 500 degC, naming the row', () => {
     expect(() => readCurveTable(parseCsv(`temperature_C,time_s,modulus_MPa\n${row(900)}`))).toThrow(
       /row 2, temperature_C: 900 degC is outside the model's range -150 to 500 degC/,
     );
     expect(() => readCurveTable(parseCsv(`temperature_K,time_s,modulus_MPa\n${row(80)}`))).toThrow(/outside the model's range/);
   });
+  // Reference: common practice, a decimal comma (ISO 80000-1 allows either sign) is ambiguous in a comma-separated file.
   it('says a decimal comma is a comma, not another unit; refuses hexadecimal cells', () => {
     expect(() =>
       readCurveTable(
