@@ -217,7 +217,7 @@ describe('test data outside the model range or in another notation', () => {
     );
     expect(() => readCurveTable(parseCsv(`temperature_K,time_s,modulus_MPa\n${row(80)}`))).toThrow(/outside the model's range/);
   });
-  // Reference: common practice, a decimal comma (ISO 80000-1 allows either sign) is ambiguous in a comma-separated file.
+  // Reference: common practice, a decimal comma (ISO 80000-1 allows either sign, from memory) is ambiguous in a comma-separated file.
   it('says a decimal comma is a comma, not another unit; refuses hexadecimal cells', () => {
     expect(() =>
       readCurveTable(
