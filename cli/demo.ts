@@ -14,7 +14,7 @@ export function printDemo(review: DemoReview, out: Out): void {
   out.write(
     markdownTable(
       ['resin', ...S.temperaturesC.map((t) => `${t} degC`)],
-      review.rows.map((r) => [r.id, ...r.cells.map((c) => `${sig(c.modulusMPa)} (${c.ratio.toFixed(2)})`)]),
+      review.rows.map((r) => [r.id, ...r.cells.map((c) => `${sig(c.modulusMPa)} (${c.ratio === null ? '-' : c.ratio.toFixed(2)})`)]),
     ),
   );
   out.write(

@@ -1,6 +1,6 @@
 /** The `resin-derate` command line: the engine's answers as text tables or JSON. */
 import {
-  apparentTgK,
+  apparentTg,
   bandEstimate,
   checkHistory,
   checkTemperatureInDomain,
@@ -11,6 +11,7 @@ import {
   FAMILIES,
   familyInput,
   hdtStressInput,
+  hottestK,
   InputError,
   isPronySpec,
   listInput,
@@ -153,8 +154,12 @@ const COMMANDS: Record<string, Command> = {
       const req = need(v, 'modulus', modulusInput);
       const tS = need(v, 'time', timeInput);
       const a = maxTemperatureK(m, req, tS);
-      const T = a.value === null ? null : kelvinToC(a.value);
-      const note = inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
+      const T = a.value === null || a.status === 'below-between' ? null : kelvinToC(a.value);
+      const below = a.below?.map((K) => sig(kelvinToC(K), 4));
+      const note =
+        a.status === 'below-between'
+          ? `below the required modulus from ${below?.[0]} to ${below?.[1]} degC only (the network stiffens as it warms)`
+          : inverseText(a, 'stays above the required modulus up to 500 degC', 'below the required modulus even at -150 degC');
       emit(
         out,
         v,
@@ -193,9 +198,10 @@ const COMMANDS: Record<string, Command> = {
     run(v, out) {
       const m = materialFrom(v);
       const tS = need(v, 'time', timeInput);
-      const TK = apparentTgK(m, tS);
-      const T = TK === null ? null : kelvinToC(TK);
-      emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${sig(T, 4)} degC\n`);
+      const a = apparentTg(m, tS);
+      const T = a.valueK === null ? null : kelvinToC(a.valueK);
+      const outside = `outside the model's range (${a.status === 'above-range' ? 'above 500' : 'below -150'} degC)\n`;
+      emit(out, v, { temperature_C: T, status: a.status }, T === null ? outside : `${sig(T, 4)} degC\n`);
     },
   },
   eqtime: {
@@ -210,20 +216,22 @@ const COMMANDS: Record<string, Command> = {
       const cycles = maybe(v, 'cycles', cyclesInput) ?? 1;
       checkHistory(segments, cycles, { cycles: '--cycles', durations: '--cycle' });
       const ref = maybe(v, 'ref', temperatureInput);
-      const refK = ref === undefined ? Math.max(...segments.map((s) => s.TK)) : checkTemperatureInDomain(m, ref, '--ref');
-      const teq = renamed({ reference_temperature: '--ref' }, () => equivalentTimeS(m, segments, refK, cycles));
-      const after = modulusAfterHistory(m, segments, cycles, refK);
+      const refK = ref === undefined ? undefined : checkTemperatureInDomain(m, ref, '--ref');
+      const names = { ref_temperature: '--ref', temperatures: '--cycle', durations: '--cycle', cycles: '--cycles' };
+      const teq = renamed(names, () => equivalentTimeS(m, segments, refK, cycles));
+      const after = renamed(names, () => modulusAfterHistory(m, segments, cycles, refK));
+      const refC = kelvinToC(refK ?? hottestK(segments));
       emit(
         out,
         v,
         {
           equivalent_time_s: teq,
           equivalent_time_h: teq / 3600,
-          ref_temperature_C: kelvinToC(refK),
+          ref_temperature_C: refC,
           modulus_MPa: after.modulusMPa,
           region: after.region,
         },
-        `${sig(teq / 3600, 4)} h at ${sig(kelvinToC(refK), 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+        `${sig(teq / 3600, 4)} h at ${sig(refC, 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
       );
     },
   },
@@ -254,11 +262,15 @@ const COMMANDS: Record<string, Command> = {
       const m = materialFrom(v);
       const stress = need(v, 'stress', hdtStressInput);
       const r = simulateHdt(m, stress);
+      const none =
+        r.status === 'rubbery-throughout'
+          ? 'does not apply: rubbery over the whole range (23 to 500 degC), not heat-proof\n'
+          : 'not reached below 500 degC\n';
       emit(
         out,
         v,
-        { temperature_C: r.temperatureC },
-        r.temperatureC === null ? 'not reached below 500 degC\n' : `${sig(r.temperatureC, 4)} degC\n`,
+        { temperature_C: r.temperatureC, status: r.status },
+        r.temperatureC === null ? none : `${sig(r.temperatureC, 4)} degC\n`,
       );
     },
   },
@@ -274,7 +286,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = need(v, 'time', timeInput);
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = deratingTable(ids, temps, tS);
+      const rows = renamed({ materials: '--families', temperatures: '--temps' }, () => deratingTable(ids, temps, tS));
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,
@@ -285,7 +297,11 @@ const COMMANDS: Record<string, Command> = {
         return;
       }
       const header = ['family', ...temps.map((t) => `${sig(t, 4)} degC MPa`), ...temps.map((t) => `ratio ${sig(t, 4)}`)];
-      const body = rows.map((r) => [r.id, ...r.cells.map((c) => sig(c.modulusMPa)), ...r.cells.map((c) => c.ratio.toFixed(2))]);
+      const body = rows.map((r) => [
+        r.id,
+        ...r.cells.map((c) => sig(c.modulusMPa)),
+        ...r.cells.map((c) => (c.ratio === null ? '-' : c.ratio.toFixed(2))),
+      ]);
       out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
     },
   },

@@ -124,7 +124,7 @@ export const SHIFTS = defineMatrix({
   },
   spillFits: 'at-most',
   run: (set: CurveSet, tg, reference) => {
-    const { referenceK, shifts } = shiftCurves(set, reference);
+    const { referenceK, shifts } = shiftCurves(set, reference, tg ?? null);
     const law = fitShiftLaw(shifts, referenceK, tg ?? null);
     const overlap = overlapRms(shifts);
     const quality = worst(qualityFromRmsLog10(overlap), law.quality);

@@ -16,10 +16,6 @@ function segmentsOf(temperaturesK: readonly number[], durationsS: readonly numbe
   });
 }
 
-function hottest(segments: readonly Segment[]): number {
-  return Math.max(...segments.map((s) => s.TK));
-}
-
 export const EQTIME = defineScalar({
   id: 'EQTIME',
   args: [
@@ -31,7 +27,7 @@ export const EQTIME = defineScalar({
   ],
   run: (m, TK, dt, refK, n) => {
     const segments = segmentsOf(TK, dt, n);
-    return equivalentTimeS(m, segments, refK ?? hottest(segments), n) / SECONDS_PER_HOUR;
+    return equivalentTimeS(m, segments, refK, n) / SECONDS_PER_HOUR;
   },
 });
 
@@ -66,7 +62,7 @@ export const DUTY = defineScalar({
   ],
   run: (m, TK, dt, n, atK) => {
     const segments = segmentsOf(TK, dt, n);
-    return modulusAfterHistory(m, segments, n, atK ?? hottest(segments)).modulusMPa;
+    return modulusAfterHistory(m, segments, n, atK).modulusMPa;
   },
 });
 

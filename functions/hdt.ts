@@ -10,6 +10,12 @@ export const HDT = defineScalar({
   args: [material('material'), testStress('stress')],
   run: (m, sigma) => {
     const r = simulateHdt(m, sigma);
+    if (r.status === 'rubbery-throughout') {
+      return new SheetError(
+        '#N/A',
+        `does not apply: ${m.params.id} is rubbery over the whole range (23 to 500 degC); its network holds the strain as it warms, so there is no heat deflection temperature (it is not heat-proof)`,
+      );
+    }
     if (r.temperatureC === null)
       return new SheetError('#N/A', `not reached: ${m.params.id} does not deflect by 0.2 % strain below 500 degC at ${sigma} MPa`);
     return r.temperatureC;

@@ -22,6 +22,14 @@ export const MAXTEMP = defineScalar({
         `not limiting: ${m.params.id} stays above ${req} MPa up to ${T_HIGH_C} degC, the top of the model's range`,
       );
     }
+    if (a.status === 'below-between' && a.below !== null) {
+      const [from, to] = a.below.map((K) => Number(kelvinToC(K).toPrecision(4)));
+      const cold = a.value === null ? '' : `below ${from} degC and `;
+      return new SheetError(
+        '#N/A',
+        `below ${req} MPa from ${from} to ${to} degC: ${m.params.id} is stiff enough only ${cold}above ${to} degC (its network stiffens as it warms)`,
+      );
+    }
     if (a.status === 'below-throughout' || a.value === null) {
       return new SheetError('#N/A', `never reached: ${m.params.id} is below ${req} MPa at every temperature down to ${T_LOW_C} degC`);
     }

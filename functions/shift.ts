@@ -1,5 +1,5 @@
 /** The time-temperature shift of a material and the apparent Tg at a time scale. */
-import { apparentTgK, kelvinToC, materialShiftLog10 } from '../src/index.js';
+import { apparentTg, kelvinToC, materialShiftLog10, TEMP_SEARCH_K } from '../src/index.js';
 import { material } from './core/args/material.js';
 import { temperature } from './core/args/temperature.js';
 import { time } from './core/args/time.js';
@@ -27,9 +27,15 @@ export const TGAT = defineScalar({
   id: 'TGAT',
   args: [material('material'), time('time')],
   run: (m, tS) => {
-    const TK = apparentTgK(m, tS);
-    if (TK === null) return new SheetError('#N/A', `time: the shift law of ${m.params.id} cannot reach a glass-transition time of ${tS} s`);
-    return kelvinToC(TK);
+    const a = apparentTg(m, tS);
+    if (a.valueK === null) {
+      const edge = kelvinToC(TEMP_SEARCH_K[a.status === 'above-range' ? 1 : 0]);
+      return new SheetError(
+        '#N/A',
+        `outside the model's range: the apparent Tg of ${m.params.id} at ${tS} s is ${a.status === 'above-range' ? 'above' : 'below'} ${edge} degC`,
+      );
+    }
+    return kelvinToC(a.valueK);
   },
 });
 

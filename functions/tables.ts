@@ -1,5 +1,5 @@
 /** Spilled tables for a review or a chart: a derating grid and a modulus-temperature curve. */
-import { CURVE_POINTS, curvePointsInput, decimalNumber, deratingTable, kelvinToC, modulusMPa } from '../src/index.js';
+import { CURVE_POINTS, curvePointsInput, decimalNumber, deratingTable, kelvinToC, modulusCurve } from '../src/index.js';
 import { count } from './core/args/count.js';
 import { material, materials } from './core/args/material.js';
 import { temperatures } from './core/args/ranges.js';
@@ -7,7 +7,6 @@ import { temperature } from './core/args/temperature.js';
 import { time } from './core/args/time.js';
 import type { OutCell } from './core/cells.js';
 import { defineMatrix, listLength } from './core/define.js';
-import { ArgumentProblem } from './core/errors.js';
 
 /** degC for a header, with the round-off of the kelvin round trip removed (1e-9 K). */
 function headerC(K: number): number {
@@ -58,18 +57,8 @@ export const CURVE = defineMatrix({
     return Number.isInteger(n) && n >= CURVE_POINTS[0] && n <= CURVE_POINTS[1] ? [n + 1, 2] : undefined;
   },
   run: (m, fromK, toK, n, tS) => {
-    if (!(toK > fromK)) {
-      throw new ArgumentProblem(
-        '#VALUE!',
-        'to_temperature',
-        `must be above from_temperature (${headerC(fromK)} degC), got ${headerC(toK)} degC`,
-      );
-    }
     const out: OutCell[][] = [['temperature degC', 'E_r MPa']];
-    for (let i = 0; i < n; i++) {
-      const TK = fromK + ((toK - fromK) * i) / (n - 1);
-      out.push([headerC(TK), modulusMPa(m, tS, TK)]);
-    }
+    for (const [TK, E] of modulusCurve(m, fromK, toK, n, tS)) out.push([headerC(TK), E]);
     return out;
   },
 });

@@ -21,6 +21,7 @@ export * from './answers/creep.js';
 export * from './numeric/lsq.js';
 export * from './fit/calibrate.js';
 export * from './fit/testdata.js';
+export * from './fit/shiftlaw.js';
 export * from './fit/mastercurve.js';
 export * from './fit/dma.js';
 export * from './input/quantity.js';

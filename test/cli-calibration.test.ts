@@ -15,9 +15,9 @@ function run(...args: string[]): unknown {
 }
 
 describe('resin-derate calibration commands', () => {
-  it('hdt --json gives { temperature_C }', () => {
+  it('hdt --json gives { temperature_C, status }', () => {
     const r = run('hdt', '--family', 'PBT', '--stress', '1.8', '--json') as { temperature_C: number };
-    expect(Object.keys(r)).toEqual(['temperature_C']);
+    expect(Object.keys(r)).toEqual(['temperature_C', 'status']);
     expect(r.temperature_C).toBeGreaterThan(23);
   });
   it('calibrate --json gives the record and a residual per input', () => {

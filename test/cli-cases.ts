@@ -47,10 +47,10 @@ export const JSON_KEYS: Record<
   shift: { required: ['log10_aT', 'law'] },
   maxtemp: { required: ['temperature_C', 'status'], optional: ['not_reached'] },
   maxtime: { required: ['time_s', 'time_h', 'status'], optional: ['not_reached'] },
-  tgat: { required: ['temperature_C'] },
+  tgat: { required: ['temperature_C', 'status'] },
   eqtime: { required: ['equivalent_time_s', 'equivalent_time_h', 'ref_temperature_C', 'modulus_MPa', 'region'] },
   stress: { required: ['stress_MPa', 'modulus_MPa', 'region', 'strain', 'beyond_linear_range'] },
-  hdt: { required: ['temperature_C'] },
+  hdt: { required: ['temperature_C', 'status'] },
 };
 
 /** Keys that may be null in an answer (documented "null if not reached"); every other number must be finite. */

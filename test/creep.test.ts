@@ -5,6 +5,7 @@ import {
   creepComplianceAtTemperature,
   creepModulusMPa,
   creepModulusPowerLawMPa,
+  FAMILIES,
   getFamily,
   KELVIN_OFFSET,
   localSlope,
@@ -71,5 +72,38 @@ describe('apparent creep modulus of the four-region model', () => {
   it('refuses a non-positive time', () => {
     const m = compileMaterial(getFamily('PC').params);
     expect(() => creepModulusMPa(m, 0, 300)).toThrow(/time/);
+  });
+});
+
+describe('creep modulus over the whole model range (issue 11)', () => {
+  const BOUND =
+    'E(t) D(t) <= 1 for a linear viscoelastic solid (Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 3; Tschoegl, The Phenomenological Theory of Linear Viscoelastic Behavior, 1989)';
+  it('answers where the material has flowed long ago (PC at 500 degC after 100 years) instead of "a Prony fit needs 3 points"', () => {
+    const m = resolveMaterial('PC');
+    const t = 100 * 31557600;
+    const Ec = creepModulusMPa(m, t, 500 + K);
+    expect(Number.isFinite(Ec)).toBe(true);
+    expect(Ec).toBeGreaterThan(0);
+    expect(Ec).toBeGreaterThanOrEqual(modulusMPa(m, t, 500 + K));
+    // A melt: far below anything a part could carry.
+    expect(Ec).toBeLessThan(1e-3);
+  });
+  it(`never below the relaxation modulus and never rising with time, for every family from -100 to 500 degC (${BOUND})`, () => {
+    for (const f of FAMILIES) {
+      const m = compileMaterial(f.params);
+      for (const T of [-100, -40, 23, 80, 150, 260, 500]) {
+        let prev = Infinity;
+        for (let lt = -3; lt <= 9.5; lt += 0.5) {
+          const t = 10 ** lt;
+          const Ec = creepModulusMPa(m, t, T + K);
+          const label = `${f.params.id} ${T} degC ${t} s`;
+          expect(Number.isFinite(Ec), label).toBe(true);
+          // 1/(1/E) may differ from E in the last bit.
+          expect(Ec, `${label}: 1/D >= E`).toBeGreaterThanOrEqual(modulusMPa(m, t, T + K) * (1 - 1e-15));
+          expect(Ec, `${label}: non-increasing in t`).toBeLessThanOrEqual(prev);
+          prev = Ec;
+        }
+      }
+    }
   });
 });

@@ -193,7 +193,8 @@ function valid(spec: ArgSpec<unknown>, makeError: MakeError): fc.Arbitrary<unkno
     case 'count':
       return fc.integer({ min: spec.min ?? 1, max: Math.min(spec.max ?? 50, 200) });
     case 'cycles':
-      return fc.oneof(fc.integer({ min: 1, max: 1000 }), logUniform(0.5, 1e6));
+      // At least one repeat (history.ts MIN_CYCLES); few enough that 24 segments of the drawn hours mostly stay within 100 years.
+      return fc.oneof(fc.integer({ min: 1, max: 1000 }), logUniform(1, 1e4));
     case 'family':
       return familyIdText();
     case 'material':
@@ -303,12 +304,14 @@ describe('every worksheet function, arbitrary input', () => {
         fc.property(callArgs(def, makeError, 0.6), (args) => {
           if (!(checkCall(def, args) instanceof SheetError)) answers++;
         }),
-        propertyParameters(runsFor(def, 60, 12)),
+        // The baseline call of test/support/samples.ts is always among the cases, so that a function whose arguments must
+        // agree with each other (EQTIME: as many durations as temperatures, a history inside 1 ms to 100 years) is reached.
+        { ...propertyParameters<[unknown[]]>(runsFor(def, 60, 12)), examples: [[validArgs(def)]] },
       );
       if (answers > 0) answered.push(def.id);
     }
     // Not vacuous: every function gave at least one answer (not only errors) in its drawn calls.
-    expect(answered).toEqual(defs.map((d) => d.id));
+    expect(defs.map((d) => d.id).filter((id) => !answered.includes(id))).toEqual([]);
   });
 
   it('through the Office adapter: numbers and spills come back, errors are CustomFunctions.Error with a message', () => {

@@ -106,8 +106,20 @@ describe('simulated HDT behaviour', () => {
       expect(a).toBeLessThanOrEqual(b ?? NaN);
     }
   });
-  it('reports no end point for a soft rubber', () => {
-    expect(simulateHdt(resolveMaterial('EPDM'), 1.8).temperatureC).toBeNull();
+  it('says a rubber is rubbery over the whole range instead of reporting "not reached" as if it were heat-proof', () => {
+    // A network above its Tg stiffens as it warms (E = 3 rho R T / Mc; Flory 1953, Treloar 1975): no end point exists.
+    for (const id of ['EPDM', 'NR', 'VMQ']) {
+      for (const s of [0.45, 1.8, 8]) {
+        const r = simulateHdt(resolveMaterial(id), s);
+        expect(r.temperatureC).toBeNull();
+        expect(r.status).toBe('rubbery-throughout');
+        expect(r.startRegion).toBe('rubbery');
+      }
+    }
+    // A thermoset below its Tg at the start reaches an end point in its glass transition.
+    const ep = simulateHdt(resolveMaterial('EP'), 1.8);
+    expect(ep.status).toBe('reached');
+    expect(ep.startRegion).toBe('glassy');
   });
   it('refuses a non-positive stress', () => {
     expect(() => simulateHdt(resolveMaterial('PC'), 0)).toThrow(/stress/);

@@ -13,7 +13,7 @@ import { functionFiles, loadsOnFirstCall } from '../functions-files.mjs';
 import { metadataProblems, withoutGeneratorDefaults } from '../office-schemas.mjs';
 
 /** Size budget of the functions script (decimal kilobytes). */
-export const BUDGET = { minifiedKB: 300, gzipKB: 90 };
+export const BUDGET = { minifiedKB: 300, gzipKB: 92 };
 
 export async function functionsMetadata(files = functionFiles()) {
   const result = await generateCustomFunctionsMetadata(files);

@@ -18,7 +18,7 @@
  * (exact where log rate is linear in T); the step that crosses the end point is re-run in fine steps.
  */
 import { InputError, ParameterError } from '../base/errors.js';
-import { creepRate, evaluateReduced, type Material } from '../material/model.js';
+import { creepRate, evaluateReduced, type Material, type Region } from '../material/model.js';
 import { powerLawProduct, localSlopeAtClocks } from './creep.js';
 import { shiftLog10, WLF_SINGULARITY_MARGIN_K } from '../material/shift.js';
 import { KELVIN_OFFSET } from '../base/units.js';
@@ -42,9 +42,21 @@ export const HDT_MAX_C = 500;
 /** Cap on the local log-log slope in the creep-compliance rule (set here against the exact solution, see above). */
 export const HDT_SLOPE_CAP = 0.55;
 
+/**
+ * reached: the strain grew by 0.2 % at temperatureC; at-start: the material relaxed fully during the
+ * preload (a melt at 23 degC); rubbery-throughout: not reached, and the material is already rubbery at
+ * the start (a network's 3 rho R T / Mc rises with T, so it never softens: HDT does not apply, it is
+ * not heat-proof); not-reached: not reached by HDT_MAX_C for another reason (endRegion says which state).
+ */
+export type HdtStatus = 'reached' | 'at-start' | 'rubbery-throughout' | 'not-reached';
+
 export interface HdtResult {
+  readonly status: HdtStatus;
   /** degC, or null when the strain criterion is not reached by HDT_MAX_C. */
   readonly temperatureC: number | null;
+  /** Region at the start (after the preload) and where the simulation ended. */
+  readonly startRegion: Region;
+  readonly endRegion: Region;
   /** Apparent creep modulus sigma / strain at the end point, MPa. */
   readonly endModulusMPa: number;
   /** Apparent creep modulus sigma / strain when the deflection is zeroed (after the preload), MPa. */
@@ -93,8 +105,18 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
   let [rXi, rTh] = rates(m, T0);
   const s: State = { xi: rXi * HDT_PRELOAD_S, theta: rTh * HDT_PRELOAD_S };
   const D0 = hdtCompliance(m, s.xi, s.theta, T0);
+  const startRegion = evaluateReduced(m, s.xi, s.theta, T0).region;
   // Fully relaxed during the preload (a melt or rubber at 23 degC): the strain criterion is met at the start.
-  if (!Number.isFinite(D0)) return { temperatureC: HDT_START_C, endModulusMPa: 0, startModulusMPa: 1 / D0 };
+  if (!Number.isFinite(D0)) {
+    return {
+      status: 'at-start',
+      temperatureC: HDT_START_C,
+      startRegion,
+      endRegion: startRegion,
+      endModulusMPa: 0,
+      startModulusMPa: 1 / D0,
+    };
+  }
   const Dend = D0 + HDT_STRAIN_INCREASE / stressMPa;
   const startModulusMPa = 1 / D0;
   const endModulusMPa = 1 / Dend;
@@ -119,7 +141,8 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
         const Dn = hdtCompliance(m, f.xi, f.theta, Tf + h);
         if (Dn >= Dend || i === HDT_REFINE_STEPS - 1) {
           const frac = Dn > Df ? Math.min(1, Math.max(0, (Dend - Df) / (Dn - Df))) : 1;
-          return { temperatureC: Tf + frac * h - KELVIN_OFFSET, endModulusMPa, startModulusMPa };
+          const endRegion = evaluateReduced(m, f.xi, f.theta, Tf + h).region;
+          return { status: 'reached', temperatureC: Tf + frac * h - KELVIN_OFFSET, startRegion, endRegion, endModulusMPa, startModulusMPa };
         }
         Tf += h;
         Df = Dn;
@@ -132,5 +155,7 @@ export function simulateHdt(m: Material, stressMPa: number, heatingKPerH = HDT_H
     T += step;
     Dprev = D;
   }
-  return { temperatureC: null, endModulusMPa, startModulusMPa };
+  const endRegion = evaluateReduced(m, s.xi, s.theta, T).region;
+  const status: HdtStatus = startRegion === 'rubbery' ? 'rubbery-throughout' : 'not-reached';
+  return { status, temperatureC: null, startRegion, endRegion, endModulusMPa, startModulusMPa };
 }

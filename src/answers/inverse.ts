@@ -6,21 +6,36 @@ import { InputError, SolverError } from '../base/errors.js';
 import { modulusMPa, type Material } from '../material/model.js';
 import { brentRoot, ROOT_REL_TOL } from '../numeric/roots.js';
 import { shiftLog10, temperatureForShiftK, WLF_SINGULARITY_MARGIN_K } from '../material/shift.js';
-import { KELVIN_OFFSET, SECONDS_PER_YEAR } from '../base/units.js';
+import { MODEL_TEMPERATURE_K, MODEL_TIME_S } from '../base/units.js';
 
-/** Temperature search range of MAXTEMP, kelvin: -150 degC to 500 degC. */
-export const TEMP_SEARCH_K: readonly [number, number] = [-150 + KELVIN_OFFSET, 500 + KELVIN_OFFSET];
-/** Time search range of MAXTIME, seconds: 1 ms to 100 Julian years. */
-export const TIME_SEARCH_S: readonly [number, number] = [1e-3, 100 * SECONDS_PER_YEAR];
-/** Points of the coarse scan used where E(T) is not monotone (a crosslinked rubber's entropic rise). */
-const SCAN_POINTS = 64;
+/** Temperature search range of MAXTEMP, kelvin: the model's range, -150 degC to 500 degC. */
+export const TEMP_SEARCH_K: readonly [number, number] = MODEL_TEMPERATURE_K;
+/** Time search range of MAXTIME, seconds: the model's range, 1 ms to 100 Julian years. */
+export const TIME_SEARCH_S: readonly [number, number] = MODEL_TIME_S;
+/**
+ * Step of the scan over the temperature range where E(T) is not monotone (a crosslinked network's
+ * entropic rise), kelvin. Set here: 1 K resolves every dip of the bundled networks many times over;
+ * the lowest scan point is then refined so that a dip narrower than a step is not missed.
+ */
+export const SCAN_STEP_K = 1;
 
-export type InverseStatus = 'found' | 'above-throughout' | 'below-throughout';
+/**
+ * found: the requirement is met from the low end of the range up to `value` and not above it;
+ * above-throughout: met over the whole range; below-throughout: met nowhere in the range;
+ * below-between: not met only inside `below` (a crosslinked network regains stiffness as it warms:
+ * E = 3 rho R T / Mc rises with T), met on the high side of it and, when `value` is not null, below it.
+ */
+export type InverseStatus = 'found' | 'above-throughout' | 'below-throughout' | 'below-between';
 
 export interface InverseAnswer {
   readonly status: InverseStatus;
-  /** The answer in engine units (K or s), or null when status is not 'found'. */
+  /** The limit in engine units (K or s): the end of the range over which the requirement holds from the low end; null when it holds nowhere from the low end, or everywhere. */
   readonly value: number | null;
+  /**
+   * Where the modulus is below the requirement inside the search range, in engine units (K or s),
+   * [from, to]; null where it is nowhere below ('above-throughout').
+   */
+  readonly below: readonly [number, number] | null;
   readonly iterations: number;
   /** |log10 E(answer) - log10 E_required| */
   readonly residual: number;
@@ -49,10 +64,94 @@ function searchRangeK(m: Material): readonly [number, number] {
   return [Math.max(lo, c.TrefK - c.C2K + WLF_SINGULARITY_MARGIN_K + 1e-6), hi];
 }
 
+const NOWHERE: Omit<InverseAnswer, 'status'> = { value: null, below: null, iterations: 0, residual: 0 };
+
+/** Golden-section minimum of f on [a, b] (a dip between two scan points); returns the abscissa. */
+function goldenMin(f: (x: number) => number, a0: number, b0: number): number {
+  const g = (Math.sqrt(5) - 1) / 2;
+  let a = a0;
+  let b = b0;
+  let c = b - g * (b - a);
+  let d = a + g * (b - a);
+  let fc = f(c);
+  let fd = f(d);
+  for (let i = 0; i < 60 && b - a > 1e-9 * Math.max(1, Math.abs(b)); i++) {
+    if (fc < fd) {
+      b = d;
+      d = c;
+      fd = fc;
+      c = b - g * (b - a);
+      fc = f(c);
+    } else {
+      a = c;
+      c = d;
+      fc = fd;
+      d = a + g * (b - a);
+      fd = f(d);
+    }
+  }
+  return fc < fd ? c : d;
+}
+
 /**
- * Highest temperature (K) at which E(t, T) >= required (MPa) for the time t (s).
- * 'below-throughout': even at -150 degC (pure WLF: just above its singularity) the material is softer;
- * 'above-throughout': stiffer up to 500 degC.
+ * The temperatures (K) where a non-monotone E(T) is below the requirement: a scan of the whole range,
+ * its lowest point refined, and the first and last crossings solved by Brent's method.
+ */
+function belowSetOfNetwork(f: (TK: number) => number, lo: number, hi: number): InverseAnswer {
+  const n = Math.max(2, Math.ceil((hi - lo) / SCAN_STEP_K));
+  const step = (hi - lo) / n;
+  const T = (i: number): number => (i === n ? hi : lo + i * step);
+  let first = -1;
+  let last = -1;
+  let minI = 0;
+  let minF = Infinity;
+  for (let i = 0; i <= n; i++) {
+    const v = f(T(i));
+    if (v < 0) {
+      if (first < 0) first = i;
+      last = i;
+    }
+    if (v < minF) {
+      minF = v;
+      minI = i;
+    }
+  }
+  let dipLo = -1;
+  let dipHi = -1;
+  let dipAt = NaN;
+  if (first < 0) {
+    // No scan point below: a dip may still hide between the lowest point and its neighbours.
+    const a = T(Math.max(0, minI - 1));
+    const b = T(Math.min(n, minI + 1));
+    dipAt = goldenMin(f, a, b);
+    if (!(f(dipAt) < 0)) return { status: 'above-throughout', ...NOWHERE };
+    dipLo = a;
+    dipHi = b;
+  }
+  // E falls and then rises, so below at both ends means below in between.
+  if (first === 0 && last === n) return { status: 'below-throughout', value: null, below: [lo, hi], iterations: 0, residual: 0 };
+  let iterations = 0;
+  let residual = 0;
+  const solve = (a: number, b: number): number => {
+    const r = solveBracket(f, a, b);
+    iterations += r.iterations;
+    residual = Math.max(residual, r.residual);
+    return r.root;
+  };
+  const from = first < 0 ? solve(dipLo, dipAt) : first === 0 ? null : solve(T(first - 1), T(first));
+  const to = first < 0 ? solve(dipAt, dipHi) : last === n ? null : solve(T(last), T(last + 1));
+  if (to === null) {
+    if (from === null) return { status: 'below-throughout', value: null, below: [lo, hi], iterations: 0, residual: 0 };
+    return { status: 'found', value: from, below: [from, hi], iterations, residual };
+  }
+  return { status: 'below-between', value: from, below: [from ?? lo, to], iterations, residual };
+}
+
+/**
+ * Highest temperature (K) up to which E(t, T) >= required (MPa) for the time t (s), from the cold end
+ * of the range. 'below-throughout': softer everywhere from -150 degC (pure WLF: just above its
+ * singularity) to 500 degC; 'above-throughout': stiffer everywhere; 'below-between': a crosslinked
+ * network softer only over `below` (it stiffens again as it warms).
  */
 export function maxTemperatureK(m: Material, requiredMPa: number, tS: number): InverseAnswer {
   requirePositive(requiredMPa, 'required_modulus');
@@ -60,53 +159,66 @@ export function maxTemperatureK(m: Material, requiredMPa: number, tS: number): I
   const logReq = Math.log10(requiredMPa);
   const f = (TK: number): number => logE(modulusMPa(m, tS, TK)) - logReq;
   const [lo, hi] = searchRangeK(m);
-  if (f(hi) >= 0) return { status: 'above-throughout', value: null, iterations: 0, residual: 0 };
-  let a = lo;
-  let b = hi;
-  if (m.kind === 'crosslinked') {
-    // The rubbery plateau rises with T, so scan down from the top for the last crossing.
-    const step = (hi - lo) / SCAN_POINTS;
-    let found = false;
-    for (let T = hi - step; T >= lo - 1e-9; T -= step) {
-      if (f(T) >= 0) {
-        a = T;
-        b = T + step;
-        found = true;
-        break;
-      }
-    }
-    if (!found) return { status: 'below-throughout', value: null, iterations: 0, residual: 0 };
-  } else if (f(lo) < 0) {
-    return { status: 'below-throughout', value: null, iterations: 0, residual: 0 };
-  }
-  const r = solveBracket(f, a, b);
-  return { status: 'found', value: r.root, iterations: r.iterations, residual: r.residual };
+  // A network's E(T) falls through the glass transition and then rises with 3 rho R T / Mc.
+  if (m.kind === 'crosslinked') return belowSetOfNetwork(f, lo, hi);
+  if (f(hi) >= 0) return { status: 'above-throughout', ...NOWHERE };
+  if (f(lo) < 0) return { status: 'below-throughout', value: null, below: [lo, hi], iterations: 0, residual: 0 };
+  const r = solveBracket(f, lo, hi);
+  return { status: 'found', value: r.root, below: [r.root, hi], iterations: r.iterations, residual: r.residual };
 }
 
 /**
- * Longest time (s) for which E(t, T) >= required (MPa) at temperature T (K).
- * 'above-throughout': still stiffer after 100 years; 'below-throughout': softer already at 1 ms.
+ * Longest time (s) for which E(t, T) >= required (MPa) at temperature T (K); E is non-increasing in t
+ * for every kind (the network's rise is with T, not t). 'above-throughout': still stiffer after 100
+ * years; 'below-throughout': softer already at 1 ms.
  */
 export function maxTimeS(m: Material, requiredMPa: number, TK: number): InverseAnswer {
   requirePositive(requiredMPa, 'required_modulus');
   requirePositive(TK, 'temperature');
   const logReq = Math.log10(requiredMPa);
   const f = (logT: number): number => logE(modulusMPa(m, 10 ** logT, TK)) - logReq;
-  const lo = Math.log10(TIME_SEARCH_S[0]);
-  const hi = Math.log10(TIME_SEARCH_S[1]);
-  if (f(hi) >= 0) return { status: 'above-throughout', value: null, iterations: 0, residual: 0 };
-  if (f(lo) < 0) return { status: 'below-throughout', value: null, iterations: 0, residual: 0 };
+  const [tLo, tHi] = TIME_SEARCH_S;
+  const lo = Math.log10(tLo);
+  const hi = Math.log10(tHi);
+  if (f(hi) >= 0) return { status: 'above-throughout', ...NOWHERE };
+  if (f(lo) < 0) return { status: 'below-throughout', value: null, below: [tLo, tHi], iterations: 0, residual: 0 };
   const r = solveBracket(f, lo, hi);
-  return { status: 'found', value: 10 ** r.root, iterations: r.iterations, residual: r.residual };
+  const t = 10 ** r.root;
+  return { status: 'found', value: t, below: [t, tHi], iterations: r.iterations, residual: r.residual };
 }
 
 /**
  * Apparent Tg (K) at a time scale t (s): the temperature at which the glass-transition relaxation time
- * equals t, i.e. a_T(T) = t / tauTg. It equals Tg at t = tauTg. Null where the shift law cannot reach it.
+ * equals t, i.e. a_T(T) = t / tauTg. It equals Tg at t = tauTg. Null where the shift law cannot reach
+ * it; not limited to the model's range (apparentTg is).
  */
 export function apparentTgK(m: Material, tS: number): number | null {
   requirePositive(tS, 'time');
   return temperatureForShiftK(m.shift, Math.log10(tS / m.tauTg));
+}
+
+/**
+ * found: inside the model's range; above-range / below-range: the shift law puts it above 500 degC
+ * (or cannot reach so short a time) or below -150 degC (or cannot reach so long a time).
+ */
+export type ApparentTgStatus = 'found' | 'above-range' | 'below-range';
+
+export interface ApparentTgAnswer {
+  readonly status: ApparentTgStatus;
+  /** Apparent Tg, K, inside the model's range; null otherwise. */
+  readonly valueK: number | null;
+  /** What the shift law gives, K, even outside the range; null where it has no answer. */
+  readonly lawK: number | null;
+}
+
+/** Apparent Tg at a time scale t (s), inside the model's temperature range or an explicit status. */
+export function apparentTg(m: Material, tS: number): ApparentTgAnswer {
+  const lawK = apparentTgK(m, tS);
+  const [lo, hi] = TEMP_SEARCH_K;
+  if (lawK === null) return { status: tS < m.tauTg ? 'above-range' : 'below-range', valueK: null, lawK };
+  if (lawK > hi) return { status: 'above-range', valueK: null, lawK };
+  if (lawK < lo) return { status: 'below-range', valueK: null, lawK };
+  return { status: 'found', valueK: lawK, lawK };
 }
 
 /** log10 a_T of the material at T (K), relative to its Tg. */

@@ -42,7 +42,7 @@ export function retainedStressMPa(m: Material, strain: number, tS: number, TK: n
   return { stressMPa: e.modulusMPa * strain, modulusMPa: e.modulusMPa, region: e.region, beyondLinearRange: strain > LINEAR_STRAIN_LIMIT };
 }
 
-/** Stress (MPa) retained at a fixed strain after `cycles` repetitions of a history, at TevalK (default: last segment). */
+/** Stress (MPa) retained at a fixed strain after `cycles` repetitions of a history, at TevalK (default: the hottest segment). */
 export function retainedStressAfterHistoryMPa(
   m: Material,
   strain: number,

@@ -33,65 +33,152 @@ export const SECONDS_PER_HOUR = 3600;
 /** The Julian year, 365.25 d (IAU), as mathjs uses it. */
 export const SECONDS_PER_YEAR = 31557600;
 
-type Quantity = 'temperature' | 'time' | 'stress';
+/**
+ * The model's temperature range, kelvin: -150 to 500 degC. Set here: from the lowest Tg a parameter
+ * record accepts to above the melting range of every bundled family (PEEK, Tm about 343 degC); every
+ * answer (inverse searches, test data, histories) stays inside it.
+ */
+export const MODEL_TEMPERATURE_K: readonly [number, number] = [-150 + KELVIN_OFFSET, 500 + KELVIN_OFFSET];
+/**
+ * The model's time range, seconds: 1 ms to 100 Julian years. Set here: from the shortest loading a
+ * part sees (impact aside) to beyond any design life; answers outside it are refused or flagged.
+ */
+export const MODEL_TIME_S: readonly [number, number] = [1e-3, 100 * SECONDS_PER_YEAR];
 
-const SPELLINGS: Record<string, string> = {
-  '°c': 'degC',
-  '℃': 'degC',
-  degc: 'degC',
-  c: 'degC',
-  '°f': 'degF',
-  '℉': 'degF',
-  degf: 'degF',
-  f: 'degF',
-  k: 'K',
-  kelvin: 'K',
-  h: 'h',
-  hr: 'h',
-  hrs: 'h',
-  hour: 'h',
-  hours: 'h',
-  s: 's',
-  sec: 's',
-  secs: 's',
-  second: 's',
-  seconds: 's',
-  ms: 'ms',
-  min: 'min',
-  mins: 'min',
-  minute: 'min',
-  minutes: 'min',
-  d: 'd',
-  day: 'day',
-  days: 'day',
-  wk: 'week',
-  week: 'week',
-  weeks: 'week',
-  y: 'y',
-  yr: 'y',
-  yrs: 'y',
-  year: 'year',
-  years: 'year',
-  pa: 'Pa',
-  kpa: 'kPa',
-  mpa: 'MPa',
-  gpa: 'GPa',
-  psi: 'psi',
-  ksi: 'ksi',
-  'n/mm2': 'MPa',
-  'n/mm^2': 'MPa',
-  'n/mm²': 'MPa',
+/** What a unit text measures. */
+export type UnitQuantity = 'temperature' | 'time' | 'stress';
+
+/**
+ * Unit words and symbols read in any case (a Map, so that typed text such as '__proto__' finds nothing): none of them changes meaning with case in the quantity it
+ * is used for ('H' is not a time unit, 'k' alone not a temperature unit, 'GPA' has no other reading),
+ * so folding is safe. Keys are lower case.
+ */
+const FOLDED = new Map<string, string>(
+  Object.entries({
+    '°c': 'degC',
+    '℃': 'degC',
+    degc: 'degC',
+    'deg c': 'degC',
+    c: 'degC',
+    celsius: 'degC',
+    'degree celsius': 'degC',
+    'degrees celsius': 'degC',
+    '°f': 'degF',
+    '℉': 'degF',
+    degf: 'degF',
+    'deg f': 'degF',
+    f: 'degF',
+    fahrenheit: 'degF',
+    'degree fahrenheit': 'degF',
+    'degrees fahrenheit': 'degF',
+    k: 'K',
+    kelvin: 'K',
+    kelvins: 'K',
+    h: 'h',
+    hr: 'h',
+    hrs: 'h',
+    hour: 'h',
+    hours: 'h',
+    s: 's',
+    sec: 's',
+    secs: 's',
+    second: 's',
+    seconds: 's',
+    min: 'min',
+    mins: 'min',
+    minute: 'min',
+    minutes: 'min',
+    d: 'd',
+    day: 'day',
+    days: 'day',
+    wk: 'week',
+    week: 'week',
+    weeks: 'week',
+    y: 'y',
+    yr: 'y',
+    yrs: 'y',
+    year: 'year',
+    years: 'year',
+    pa: 'Pa',
+    kpa: 'kPa',
+    gpa: 'GPa',
+    psi: 'psi',
+    ksi: 'ksi',
+    'n/mm2': 'MPa',
+    'n/mm^2': 'MPa',
+    'n/mm²': 'MPa',
+  }),
+);
+
+/**
+ * Spellings whose meaning hangs on the case of an SI prefix (SI Brochure 9th ed. 2019, 3.1: prefix
+ * symbols are case-sensitive; M mega, m milli). Only the exact SI symbols are read; any other case of
+ * them is refused rather than guessed ('1 Ms' is a megasecond, '800 mPa' is 0.0008 MPa).
+ */
+const PREFIX_CASE = new Map<string, { exact: readonly string[]; say: string }>(
+  Object.entries({
+    mpa: { exact: ['MPa', 'mPa'], say: "'MPa' (megapascal) or 'mPa' (millipascal)" },
+    ms: { exact: ['ms', 'Ms'], say: "'ms' (millisecond) or 'Ms' (megasecond)" },
+  }),
+);
+
+const BASE: Record<UnitQuantity, { unit: string; word: string; name: string; examples: string }> = {
+  temperature: { unit: 'K', word: 'a temperature unit', name: 'a temperature', examples: "'80 degC', '176 degF' or '350 K'" },
+  time: { unit: 's', word: 'a time unit', name: 'a time', examples: "'1000 h', '10 s', '2 weeks' or '5 years'" },
+  stress: { unit: 'Pa', word: 'a stress unit', name: 'a stress or modulus', examples: "'2400 MPa', '2.4 GPa' or '300 ksi'" },
 };
 
-const BASE: Record<Quantity, { unit: string; word: string; examples: string }> = {
-  temperature: { unit: 'K', word: 'a temperature unit', examples: "'80 degC', '176 degF' or '350 K'" },
-  time: { unit: 's', word: 'a time unit', examples: "'1000 h', '10 s', '2 weeks' or '5 years'" },
-  stress: { unit: 'Pa', word: 'a stress unit', examples: "'2400 MPa', '2.4 GPa' or '300 ksi'" },
-};
-
+/** A decimal number: digits, an optional point and fraction, an optional exponent (no hex, binary, octal or separators). */
+const DECIMAL = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
 const NUMBER_THEN_UNIT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*)$/;
+/** Number text that JavaScript would read in another base, or with a decimal comma: refused with its own message. */
+const OTHER_BASE = /^[-+]?0[xXbBoO][0-9a-fA-F_]*/;
+const DECIMAL_COMMA = /^[-+]?\d+,\d/;
 
-function parseUnitText(text: string, argument: string, quantity: Quantity): Unit {
+/** The engine unit a typed unit text stands for: exact SI symbols first, then the case-safe words. */
+function canonicalUnit(unitText: string, text: string, argument: string): string {
+  const lower = unitText.toLowerCase();
+  const prefixed = PREFIX_CASE.get(lower);
+  if (prefixed) {
+    if (prefixed.exact.includes(unitText)) return unitText;
+    throw new InputError(argument, `'${unitText}' in '${text}' is ambiguous: unit prefixes are case-sensitive; write ${prefixed.say}`);
+  }
+  return FOLDED.get(lower) ?? unitText;
+}
+
+/**
+ * Reads text that is only a number. Returns null for text that is not a bare number (it may carry a
+ * unit); throws for a number in another base, a decimal comma or a number beyond the double range.
+ */
+function bareNumber(text: string, argument: string): number | null {
+  const t = text.trim();
+  if (OTHER_BASE.test(t)) {
+    throw new InputError(argument, `'${text}' is not a decimal number; only decimal numbers such as 80 or 1.5e3 are read`);
+  }
+  if (DECIMAL_COMMA.test(t)) {
+    throw new InputError(
+      argument,
+      `'${text}': a comma in a number is ambiguous (decimal comma or thousands separator); write it with a decimal point and no separators, such as 1.5 or 1000`,
+    );
+  }
+  const match = NUMBER_THEN_UNIT.exec(t);
+  if (match?.[1] !== undefined) {
+    const x = Number(match[1]);
+    if (!Number.isFinite(x)) {
+      const what = match[2] ? `${match[1]} in '${text}'` : `'${text}'`;
+      throw new InputError(argument, `${what} is out of range for a number (beyond 1.8e308)`);
+    }
+  }
+  return DECIMAL.test(t) ? Number(t) : null;
+}
+
+/** The quantity a unit measures, for a message when it is the wrong one. */
+function quantityOf(unit: Unit): UnitQuantity | null {
+  for (const q of Object.keys(BASE) as UnitQuantity[]) if (unit.equalBase(math.unit(`1 ${BASE[q].unit}`))) return q;
+  return null;
+}
+
+function parseUnitText(text: string, argument: string, quantity: UnitQuantity): Unit {
   const spec = BASE[quantity];
   const trimmed = text.trim();
   const match = NUMBER_THEN_UNIT.exec(trimmed);
@@ -99,8 +186,8 @@ function parseUnitText(text: string, argument: string, quantity: Quantity): Unit
     throw new InputError(argument, `expected a number or a number with ${spec.word} such as ${spec.examples}, got '${text}'`);
   }
   const numberText = match[1];
-  const unitText = (match[2] ?? '').trim();
-  const canonical = SPELLINGS[unitText] ?? SPELLINGS[unitText.toLowerCase()] ?? unitText;
+  const unitText = (match[2] ?? '').trim().replace(/\s+/g, ' ');
+  const canonical = canonicalUnit(unitText, text, argument);
   let unit: Unit;
   try {
     unit = math.unit(`${numberText} ${canonical}`);
@@ -108,9 +195,26 @@ function parseUnitText(text: string, argument: string, quantity: Quantity): Unit
     throw new InputError(argument, `unknown unit '${unitText}' in '${text}'; use ${spec.examples}`);
   }
   if (!unit.equalBase(math.unit(`1 ${spec.unit}`))) {
+    const is = quantityOf(unit);
+    if (is !== null) throw new InputError(argument, `'${text}' is ${BASE[is].name}, but ${spec.name} is needed here; use ${spec.examples}`);
     throw new InputError(argument, `${quantity} needs ${spec.word}, got '${text}'`);
   }
   return unit;
+}
+
+/**
+ * The unit (as the parsers read it) that a unit text such as a column header's stands for, checked to
+ * measure `quantity`; throws InputError naming `argument` for an unknown, ambiguous or wrong unit.
+ */
+export function unitFor(unitText: string, quantity: UnitQuantity, argument: string): string {
+  const unitOnly = unitText.trim().replace(/\s+/g, ' ');
+  parseUnitText(`1 ${unitOnly}`, argument, quantity);
+  return canonicalUnit(unitOnly, unitText, argument);
+}
+
+/** Reads number text (decimal only) to a number, or null when it is not a bare number; throws for hex, a comma or overflow. */
+export function bareDecimal(text: string, argument: string): number | null {
+  return bareNumber(text, argument);
 }
 
 function finiteOrThrow(value: number, argument: string, what: string): number {
@@ -125,8 +229,8 @@ export function parseTemperatureK(input: number | string, argument = 'temperatur
     kelvin = finiteOrThrow(input, argument, 'a temperature') + KELVIN_OFFSET;
   } else {
     if (input.trim() === '') throw new InputError(argument, 'a temperature is required, got empty text');
-    const bare = Number(input.trim());
-    kelvin = Number.isFinite(bare) ? bare + KELVIN_OFFSET : parseUnitText(input, argument, 'temperature').toNumber('K');
+    const bare = bareNumber(input, argument);
+    kelvin = bare !== null ? bare + KELVIN_OFFSET : parseUnitText(input, argument, 'temperature').toNumber('K');
   }
   finiteOrThrow(kelvin, argument, 'a temperature');
   if (kelvin <= 0) {
@@ -151,8 +255,8 @@ export function parseTimeS(input: number | string, argument = 'time'): number {
     seconds = finiteOrThrow(input, argument, 'a time') * SECONDS_PER_HOUR;
   } else {
     if (input.trim() === '') throw new InputError(argument, 'a time is required, got empty text');
-    const bare = Number(input.trim());
-    seconds = Number.isFinite(bare) ? bare * SECONDS_PER_HOUR : parseUnitText(input, argument, 'time').toNumber('s');
+    const bare = bareNumber(input, argument);
+    seconds = bare !== null ? bare * SECONDS_PER_HOUR : parseUnitText(input, argument, 'time').toNumber('s');
   }
   finiteOrThrow(seconds, argument, 'a time');
   if (seconds <= 0) throw new InputError(argument, `a time must be greater than zero, got ${formatInput(input)}`);
@@ -166,8 +270,8 @@ export function parseStressMPa(input: number | string, argument = 'modulus'): nu
     mpa = finiteOrThrow(input, argument, 'a stress or modulus');
   } else {
     if (input.trim() === '') throw new InputError(argument, 'a value is required, got empty text');
-    const bare = Number(input.trim());
-    mpa = Number.isFinite(bare) ? bare : parseUnitText(input, argument, 'stress').toNumber('MPa');
+    const bare = bareNumber(input, argument);
+    mpa = bare !== null ? bare : parseUnitText(input, argument, 'stress').toNumber('MPa');
   }
   finiteOrThrow(mpa, argument, 'a stress or modulus');
   if (mpa <= 0) throw new InputError(argument, `must be greater than zero, got ${formatInput(input)}`);
@@ -180,7 +284,7 @@ export function parseStrain(input: number | string, argument = 'strain'): number
   const text = input.trim();
   if (text === '') throw new InputError(argument, 'a strain is required, got empty text');
   const percent = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*%$/.exec(text);
-  const value = percent?.[1] !== undefined ? Number(percent[1]) / 100 : Number(text);
+  const value = percent?.[1] !== undefined ? Number(percent[1]) / 100 : (bareNumber(text, argument) ?? NaN);
   if (!Number.isFinite(value))
     throw new InputError(argument, `expected a fraction such as 0.005 or a percentage such as '0.5 %', got '${input}'`);
   return value;
@@ -188,7 +292,7 @@ export function parseStrain(input: number | string, argument = 'strain'): number
 
 /** Converts MPa to a named stress unit (Pa, kPa, MPa, GPa, psi, ksi). */
 export function convertStressFromMPa(mpa: number, unitName: string, argument = 'unit'): number {
-  const canonical = SPELLINGS[unitName.trim().toLowerCase()] ?? unitName.trim();
+  const canonical = canonicalUnit(unitName.trim(), unitName, argument);
   let target: Unit;
   try {
     target = math.unit(`1 ${canonical}`);

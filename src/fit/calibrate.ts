@@ -15,6 +15,7 @@ import { InputError, ParameterError } from '../base/errors.js';
 import { creepModulusMPa } from '../answers/creep.js';
 import { simulateHdt, HDT_MAX_C } from '../answers/hdt.js';
 import { boundedLeastSquares, type FreeParameter } from '../numeric/lsq.js';
+import { norm2 } from '../numeric/arrays.js';
 import { compileMaterial, DATASHEET_TIME_S, modulusMPa, T23_K, type Material } from '../material/model.js';
 import { fieldSpec, NUMERIC_FIELDS, type Kind, type MaterialParams, type NumericField } from '../material/params.js';
 import { isPronySpec } from '../material/pronymaterial.js';
@@ -460,14 +461,14 @@ function chooseFree(
   const tryAdd = (field: NumericField, input: string): 'ok' | 'no-effect' | 'dependent' => {
     const col = column(field);
     if (!col) return 'no-effect';
-    const norm = Math.hypot(...col);
+    const norm = norm2(col);
     if (!(norm >= MIN_EFFECT)) return 'no-effect';
     const rest = col.slice();
     for (const q of basis) {
       const d = rest.reduce((s, v, i) => s + v * (q[i] ?? 0), 0);
       for (let i = 0; i < rest.length; i++) rest[i] = (rest[i] ?? 0) - d * (q[i] ?? 0);
     }
-    const restNorm = Math.hypot(...rest);
+    const restNorm = norm2(rest);
     if (!(restNorm >= MIN_INDEPENDENCE * norm)) return 'dependent';
     basis.push(rest.map((v) => v / restNorm));
     chosen.push({ field, input });

@@ -12,6 +12,7 @@
 import { InputError } from '../base/errors.js';
 import { localSlope } from '../answers/creep.js';
 import { boundedLeastSquares, type FreeParameter } from '../numeric/lsq.js';
+import { maxOf, norm2 } from '../numeric/arrays.js';
 import { compileMaterial, modulusMPa, type Material } from '../material/model.js';
 import { fieldSpec, type MaterialParams, type NumericField } from '../material/params.js';
 import { pronyStorageMPa, qualityFromRmsLog10, type FitQuality } from '../material/prony.js';
@@ -151,13 +152,13 @@ export function fitDma(start: MaterialInput, sweep: DmaSweep, options: DmaFitOpt
     } catch {
       col = [];
     }
-    const norm = Math.hypot(...col);
+    const norm = norm2(col);
     const rest = col.slice();
     for (const q of basis) {
       const d = rest.reduce((s, x, i) => s + x * (q[i] ?? 0), 0);
       for (let i = 0; i < rest.length; i++) rest[i] = (rest[i] ?? 0) - d * (q[i] ?? 0);
     }
-    const restNorm = Math.hypot(...rest);
+    const restNorm = norm2(rest);
     if (norm < 0.05 || restNorm < 0.05 * norm) {
       const why = norm < 0.05 ? 'the sweep does not cover the range where it acts' : 'its effect duplicates the parameters already fitted';
       if (options.free) throw new InputError('free', `${f} cannot be fitted to this sweep: ${why}`);
@@ -182,7 +183,7 @@ export function fitDma(start: MaterialInput, sweep: DmaSweep, options: DmaFitOpt
   const fitted = build(r.values);
   const res = residuals(fitted).map((x) => x * DMA_TOLERANCE_LOG10);
   const rms = Math.sqrt(res.reduce((s, x) => s + x * x, 0) / res.length);
-  const max = Math.max(...res.map(Math.abs));
+  const max = maxOf(res.map(Math.abs));
   if (!r.converged) notes.push(`the least-squares fit did not converge (${r.reason}); the record is the best point found`);
   const free = chosen.map((c, i) => ({
     field: c.field,

@@ -11,14 +11,15 @@
  * WLF (Williams, Landel, Ferry 1955) is fitted to the shifts at and above Tg, Arrhenius below, joined
  * continuously at Tg.
  */
-import { InputError } from '../base/errors.js';
-import { boundedLeastSquares } from '../numeric/lsq.js';
+import { InputError, ParameterError } from '../base/errors.js';
 import { fitProny, pronyCreepCompliance, complianceAt, qualityFromRmsLog10, type FitQuality, type PronySeries } from '../material/prony.js';
 import { nnls } from '../numeric/nnls.js';
+import { maxOf, minOf } from '../numeric/arrays.js';
 import { brentRoot } from '../numeric/roots.js';
-import type { PronyMaterialSpec } from '../material/pronymaterial.js';
-import { GAS_CONSTANT, wlfLog10, type ShiftLaw } from '../material/shift.js';
+import { compilePronyMaterial, type PronyMaterialSpec } from '../material/pronymaterial.js';
+import { fieldSpec } from '../material/params.js';
 import type { Curve, CurveSet } from './testdata.js';
+import { fitShiftLaw, type CurveShift, type ShiftLawFit } from './shiftlaw.js';
 import { KELVIN_OFFSET } from '../base/units.js';
 
 /** Step of the coarse scan of log10 a_T, decades. */
@@ -30,21 +31,6 @@ export const MIN_OVERLAP_SHARE = 0.2;
 export const MIN_CURVES = 2;
 /** Most Prony terms per decade tried when one per decade is not enough. */
 export const AUTO_MAX_TERMS_PER_DECADE = 4;
-/** Tolerance of a fitted log10 a_T, decades, for scaling and the quality flag. */
-export const SHIFT_TOLERANCE = 0.05;
-
-export interface CurveShift {
-  readonly temperatureK: number;
-  /** log10 a_T relative to the reference temperature. */
-  readonly log10aT: number;
-  /** Points overlapping the neighbour it was shifted against (0 for the reference curve). */
-  readonly overlapPoints: number;
-  /** RMS log10 modulus mismatch over the overlap, decades. */
-  readonly rmsLog10: number;
-  /** Temperature (K) of the curve it was shifted against (null for the reference). */
-  readonly againstK: number | null;
-}
-
 export interface MasterPoint {
   /** Reduced time t / a_T at the reference temperature, s. */
   readonly reducedTimeS: number;
@@ -76,8 +62,8 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   const Xmax = X[X.length - 1] ?? 0;
   const need = Math.max(MIN_OVERLAP_POINTS, Math.ceil(MIN_OVERLAP_SHARE * x.length));
   // A horizontal shift leaves the moduli where they are: the curves must share a range of modulus.
-  const Ylo = Math.min(...Y) - 0.02;
-  const Yhi = Math.max(...Y) + 0.02;
+  const Ylo = minOf(Y) - 0.02;
+  const Yhi = maxOf(Y) + 0.02;
   const inRange = y.filter((v) => v >= Ylo && v <= Yhi).length;
   if (inRange < need) {
     throw new InputError(
@@ -144,8 +130,12 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   return { s: use, overlap: o.n, rms: Math.sqrt(o.f) };
 }
 
-/** Shifts every curve to the temperature of one of them (default: the median temperature). */
-export function shiftCurves(set: CurveSet, referenceK?: number): { referenceK: number; shifts: CurveShift[] } {
+/**
+ * Shifts every curve to the temperature of one of them. Default: the median temperature of the curves
+ * at or above Tg when Tg (K) is given and some curve is (the WLF part is referred to the reference, so
+ * it must not lie below Tg), else the median of all.
+ */
+export function shiftCurves(set: CurveSet, referenceK?: number, TgK: number | null = null): { referenceK: number; shifts: CurveShift[] } {
   const curves = [...set.curves].sort((p, q) => p.temperatureK - q.temperatureK);
   if (curves.length < MIN_CURVES)
     throw new InputError('data', `a master curve needs curves at ${MIN_CURVES} or more temperatures, got ${curves.length}`);
@@ -157,7 +147,9 @@ export function shiftCurves(set: CurveSet, referenceK?: number): { referenceK: n
       );
     }
   }
-  let refIndex = Math.floor((curves.length - 1) / 2);
+  const firstAbove = TgK === null ? 0 : curves.findIndex((c) => c.temperatureK >= TgK);
+  const from = firstAbove < 0 ? 0 : firstAbove;
+  let refIndex = from + Math.floor((curves.length - 1 - from) / 2);
   if (referenceK !== undefined) {
     refIndex = curves.findIndex((c) => Math.abs(c.temperatureK - referenceK) < 1e-6);
     if (refIndex < 0) {
@@ -202,165 +194,6 @@ export function masterPoints(set: CurveSet, shifts: readonly CurveShift[]): Mast
   return pts.sort((a, b) => a.reducedTimeS - b.reducedTimeS);
 }
 
-/** Shift law fitted to log10 a_T values; WLF constants are with the master curve's reference as reference. */
-export interface ShiftLawFit {
-  readonly law: ShiftLaw;
-  readonly referenceK: number;
-  readonly TgK: number | null;
-  readonly C1: number | null;
-  readonly C2K: number | null;
-  readonly EakJmol: number | null;
-  /** How each number was obtained. */
-  readonly fitted: { readonly wlf: boolean; readonly arrhenius: boolean };
-  /** RMS of log10 a_T (law - shifts) over the curves other than the reference, decades. */
-  readonly rmsLog10: number;
-  readonly points: number;
-  readonly quality: FitQuality;
-  readonly notes: readonly string[];
-}
-
-/** Default Arrhenius energy below Tg when no curve lies below Tg (the families' value; see families.ts SRC.eaGlass). */
-export const DEFAULT_EA_KJMOL = 600;
-
-/**
- * Fits the shift law to the shifts: WLF (C1, C2 at the reference) to the curves at or above Tg (all
- * curves when Tg is not given) and, when Tg is given, Arrhenius Ea to those below it, continuous at Tg.
- */
-export function fitShiftLaw(shifts: readonly CurveShift[], referenceK: number, TgK: number | null = null): ShiftLawFit {
-  const notes: string[] = [];
-  const above = shifts.filter((s) => TgK === null || s.temperatureK >= TgK);
-  const below = shifts.filter((s) => TgK !== null && s.temperatureK < TgK);
-  const aboveData = above.filter((s) => Math.abs(s.temperatureK - referenceK) > 1e-9);
-  let C1: number | null = null;
-  let C2: number | null = null;
-  let wlfFitted = false;
-  if (TgK !== null && referenceK < TgK && above.length > 0) {
-    throw new InputError(
-      'reference',
-      'with curves above Tg, choose a reference temperature at or above Tg (the WLF part is referred to it)',
-    );
-  }
-  if (aboveData.length >= 2) {
-    const fit = fitWlf(aboveData, referenceK);
-    C1 = fit.C1;
-    C2 = fit.C2K;
-    wlfFitted = true;
-    if (aboveData.length === 2)
-      notes.push('WLF C1 and C2 rest on exactly two shifts: they fit them exactly and are not checked by a third');
-  } else if (above.length > 0 && TgK !== null) {
-    throw new InputError(
-      'data',
-      `WLF needs curves at three or more temperatures at or above Tg (the reference and two others); got ${above.length}`,
-    );
-  } else if (TgK === null) {
-    throw new InputError('data', 'WLF needs curves at three or more temperatures; give Tg to fit Arrhenius below it instead');
-  }
-  let Ea: number | null = null;
-  let arrFitted = false;
-  let law: ShiftLaw = 'wlf';
-  if (TgK !== null) {
-    if (C1 === null) {
-      // Every curve below Tg: Arrhenius through the reference.
-      law = 'arrhenius';
-      const pts = below.filter((s) => Math.abs(s.temperatureK - referenceK) > 1e-9);
-      if (pts.length < 1) throw new InputError('data', 'Arrhenius needs curves at two or more temperatures');
-      Ea = arrheniusSlope(pts, referenceK, 0);
-      arrFitted = true;
-      notes.push('every curve is below Tg: the shift law is Arrhenius throughout (it extrapolates above Tg as Arrhenius)');
-    } else {
-      law = 'hybrid';
-      const anchor = wlfLog10(TgK, referenceK, C1, C2 ?? 1);
-      if (below.length > 0) {
-        Ea = arrheniusSlope(below, TgK, anchor);
-        arrFitted = true;
-      } else {
-        Ea = DEFAULT_EA_KJMOL;
-        notes.push(
-          `no curve below Tg: the Arrhenius energy below Tg is not fitted; ${DEFAULT_EA_KJMOL} kJ/mol (the families' default) is used`,
-        );
-      }
-    }
-  } else {
-    notes.push('no Tg given: WLF is used at every temperature; give Tg to switch to Arrhenius below it');
-  }
-  const predict = (T: number): number => {
-    if (law === 'arrhenius') return ((Ea ?? 0) * 1000 * (1 / T - 1 / referenceK)) / (GAS_CONSTANT * Math.LN10);
-    if (law === 'hybrid' && TgK !== null && T < TgK) {
-      return wlfLog10(TgK, referenceK, C1 ?? 0, C2 ?? 1) + ((Ea ?? 0) * 1000 * (1 / T - 1 / TgK)) / (GAS_CONSTANT * Math.LN10);
-    }
-    return wlfLog10(T, referenceK, C1 ?? 0, C2 ?? 1);
-  };
-  const data = shifts.filter((s) => Math.abs(s.temperatureK - referenceK) > 1e-9);
-  const rms = Math.sqrt(data.reduce((sum, s) => sum + (predict(s.temperatureK) - s.log10aT) ** 2, 0) / Math.max(1, data.length));
-  const quality: FitQuality = rms <= 2 * SHIFT_TOLERANCE ? 'good' : rms <= 6 * SHIFT_TOLERANCE ? 'fair' : 'poor';
-  const exact = (wlfFitted && aboveData.length === 2) || (arrFitted && !wlfFitted && data.length === 1);
-  return {
-    law,
-    referenceK,
-    TgK,
-    C1,
-    C2K: C2,
-    EakJmol: Ea,
-    fitted: { wlf: wlfFitted, arrhenius: arrFitted },
-    rmsLog10: rms,
-    points: data.length,
-    quality: exact && quality === 'good' ? 'fair' : quality,
-    notes,
-  };
-}
-
-/** Least-squares slope k of log a = anchor + k (1/T - 1/T0), returned as Ea in kJ/mol. */
-function arrheniusSlope(pts: readonly CurveShift[], T0: number, anchor: number): number {
-  let num = 0;
-  let den = 0;
-  for (const s of pts) {
-    const u = 1 / s.temperatureK - 1 / T0;
-    num += u * (s.log10aT - anchor);
-    den += u * u;
-  }
-  const Ea = ((num / den) * GAS_CONSTANT * Math.LN10) / 1000;
-  if (!(Ea > 0))
-    throw new InputError(
-      'data',
-      `the shifts below Tg run the wrong way for Arrhenius (fitted Ea ${Ea.toFixed(1)} kJ/mol); check the curve temperatures`,
-    );
-  return Ea;
-}
-
-function fitWlf(pts: readonly CurveShift[], Tr: number): { C1: number; C2K: number } {
-  // Start from the linearized form (T - Tr) / log a = -C2/C1 - (T - Tr)/C1.
-  const use = pts.filter((s) => Math.abs(s.log10aT) > 1e-6);
-  let C1s = 17.44;
-  let C2s = 51.6;
-  if (use.length >= 2) {
-    const xs = use.map((s) => s.temperatureK - Tr);
-    const ys = use.map((s, i) => (xs[i] ?? 0) / s.log10aT);
-    const n = xs.length;
-    const mx = xs.reduce((a, b) => a + b, 0) / n;
-    const my = ys.reduce((a, b) => a + b, 0) / n;
-    const sxx = xs.reduce((a, x) => a + (x - mx) ** 2, 0);
-    const sxy = xs.reduce((a, x, i) => a + (x - mx) * ((ys[i] ?? 0) - my), 0);
-    const slope = sxx > 0 ? sxy / sxx : 0;
-    const c1 = -1 / slope;
-    const c2 = -(my - slope * mx) * c1;
-    if (c1 > 0.5 && c1 < 60 && c2 > 5 && c2 < 500) {
-      C1s = c1;
-      C2s = c2;
-    }
-  }
-  const minDT = Math.min(...pts.map((s) => s.temperatureK - Tr));
-  const c2Min = Math.max(5, -minDT + 1);
-  const r = boundedLeastSquares(
-    [
-      { name: 'C1', start: C1s, min: 0.5, max: 60, log: true },
-      { name: 'C2_K', start: Math.max(C2s, c2Min + 1), min: c2Min, max: 500, log: true },
-    ],
-    ([c1, c2]) => pts.map((s) => (wlfLog10(s.temperatureK, Tr, c1 ?? 1, c2 ?? 1) - s.log10aT) / SHIFT_TOLERANCE),
-    1e-10,
-  );
-  return { C1: r.values[0] ?? NaN, C2K: r.values[1] ?? NaN };
-}
-
 /** Everything fitted from a set of curves. */
 export interface CurveFit {
   readonly kind: CurveSet['kind'];
@@ -399,8 +232,16 @@ function worst(...q: FitQuality[]): FitQuality {
 
 /** Master curve, shift law and Prony series from relaxation or creep curves. */
 export function fitCurves(set: CurveSet, options: CurveFitOptions = {}): CurveFit {
-  const { referenceK, shifts } = shiftCurves(set, options.referenceK);
-  const shiftLaw = fitShiftLaw(shifts, referenceK, options.TgK ?? null);
+  const tgSpec = fieldSpec('Tg_C');
+  const TgK = options.TgK ?? null;
+  if (TgK !== null && (!(TgK - KELVIN_OFFSET >= tgSpec.min) || !(TgK - KELVIN_OFFSET <= tgSpec.max))) {
+    throw new InputError(
+      'tg',
+      `${Number((TgK - KELVIN_OFFSET).toPrecision(6))} degC is outside ${tgSpec.min} to ${tgSpec.max} degC (${tgSpec.description})`,
+    );
+  }
+  const { referenceK, shifts } = shiftCurves(set, options.referenceK, TgK);
+  const shiftLaw = fitShiftLaw(shifts, referenceK, TgK);
   const master = masterPoints(set, shifts);
   const notes = [...shiftLaw.notes];
   const times = master.map((p) => p.reducedTimeS);
@@ -447,6 +288,13 @@ export function fitCurves(set: CurveSet, options: CurveFitOptions = {}): CurveFi
     C2K: shiftLaw.C2K,
     EakJmol: shiftLaw.EakJmol,
   };
+  try {
+    // What the fit writes must read back as a material (the same checks as a typed Prony table).
+    compilePronyMaterial(material);
+  } catch (e) {
+    if (e instanceof ParameterError) throw new InputError('data', `the fitted Prony table is not a valid material: ${e.message}`);
+    throw e;
+  }
   return {
     kind: set.kind,
     referenceK,
@@ -480,8 +328,8 @@ export function fitCreepToProny(
   const n = timesS.length;
   if (n < 3) throw new InputError('data', `a creep fit needs at least 3 points, got ${n}`);
   const D = creepModuliMPa.map((e) => 1 / e);
-  const lo = Math.floor(Math.log10(Math.min(...timesS)));
-  const hi = Math.ceil(Math.log10(Math.max(...timesS)));
+  const lo = Math.floor(Math.log10(minOf(timesS)));
+  const hi = Math.ceil(Math.log10(maxOf(timesS)));
   const count = Math.max(1, Math.round((hi - lo) * termsPerDecade) + 1);
   const lams = Array.from({ length: count }, (_, i) => 10 ** (count === 1 ? lo : lo + ((hi - lo) * i) / (count - 1)));
   const A = timesS.map((t, k) => {

@@ -14,7 +14,7 @@
  * time_[s|min|h|d|week|y], modulus_[Pa|kPa|MPa|GPa|psi|ksi], compliance_[1/Pa|1/MPa|1/GPa].
  */
 import { InputError } from '../base/errors.js';
-import { parseStressMPa, parseTemperatureK, parseTimeS } from '../base/units.js';
+import { bareDecimal, MODEL_TEMPERATURE_K, parseStressMPa, parseTemperatureK, parseTimeS, unitFor } from '../base/units.js';
 
 export type CurveKind = 'relaxation' | 'creep';
 
@@ -48,23 +48,6 @@ interface Column {
   readonly name: string;
 }
 
-const TEMPERATURE_UNITS: Record<string, string> = { c: 'degC', degc: 'degC', '°c': 'degC', k: 'K', degf: 'degF', f: 'degF', '°f': 'degF' };
-const TIME_UNITS: Record<string, string> = {
-  s: 's',
-  sec: 's',
-  min: 'min',
-  h: 'h',
-  hr: 'h',
-  hour: 'h',
-  d: 'day',
-  day: 'day',
-  week: 'week',
-  wk: 'week',
-  y: 'year',
-  yr: 'year',
-  year: 'year',
-};
-const STRESS_UNITS: Record<string, string> = { pa: 'Pa', kpa: 'kPa', mpa: 'MPa', gpa: 'GPa', psi: 'psi', ksi: 'ksi' };
 const COMPLIANCE_PER_MPA: Record<string, number> = { '1/pa': 1e6, '1/mpa': 1, '1/gpa': 1e-3 };
 
 function parseHeader(cell: unknown, index: number): Column {
@@ -83,25 +66,29 @@ function parseHeader(cell: unknown, index: number): Column {
   const r = root.toLowerCase().replace(/[\s-]+/g, '_');
   const u = unit.toLowerCase();
   const where = `column ${index + 1} '${name}'`;
+  /** The header's unit read as the unit parsers read it (SI prefixes case-sensitive, unit words any case). */
+  const canonical = (quantity: 'temperature' | 'time' | 'stress', use: string): string => {
+    try {
+      return unitFor(unit, quantity, 'header');
+    } catch (e) {
+      if (e instanceof InputError) throw new InputError('header', `${where}: ${e.problem}; use ${use}`);
+      throw e;
+    }
+  };
   const needUnit = (examples: string): never => {
     throw new InputError('header', `${where} needs a unit, such as ${examples}`);
   };
   if (r === 'temperature' || r === 't' || r === 'temp') {
     if (!u) needUnit("'temperature_C' or 'temperature [K]'");
-    const canon = TEMPERATURE_UNITS[u];
-    if (!canon) throw new InputError('header', `${where}: unknown temperature unit '${unit}'; use C, K or degF`);
-    return { quantity: 'temperature', role: 'temperature', unit: canon, name };
+    return { quantity: 'temperature', role: 'temperature', unit: canonical('temperature', 'C, K or degF'), name };
   }
   if (r === 'time') {
     if (!u) needUnit("'time_s' or 'time [h]'");
-    const canon = TIME_UNITS[u];
-    if (!canon) throw new InputError('header', `${where}: unknown time unit '${unit}'; use s, min, h, d, week or y`);
-    return { quantity: 'time', role: 'time', unit: canon, name };
+    return { quantity: 'time', role: 'time', unit: canonical('time', 's, min, h, d, week or y'), name };
   }
   if (r === 'modulus' || r === 'relaxation_modulus' || r === 'creep_modulus' || r === 'storage' || r === 'storage_modulus' || r === 'e') {
     if (!u) needUnit("'modulus_MPa' or 'modulus [GPa]'");
-    const canon = STRESS_UNITS[u];
-    if (!canon) throw new InputError('header', `${where}: unknown modulus unit '${unit}'; use Pa, kPa, MPa, GPa, psi or ksi`);
+    const canon = canonical('stress', 'Pa, kPa, MPa, GPa, psi or ksi');
     const role = r.startsWith('creep') ? 'creep' : r.startsWith('storage') ? 'storage' : 'relaxation';
     return { quantity: 'modulus', role, unit: canon, name };
   }
@@ -194,13 +181,26 @@ function readCell(v: unknown, col: Column, row: number): number {
     return convert(v, col, where);
   }
   const text = String(v).trim();
-  const bare = Number(text);
-  if (text !== '' && Number.isFinite(bare)) return convert(bare, col, where);
+  let bare: number | null;
+  try {
+    bare = bareDecimal(text, 'data');
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError('data', `${where}: ${e.problem}`);
+    throw e;
+  }
+  if (bare !== null) return convert(bare, col, where);
   const m = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*(.+)$/.exec(text);
   if (!m) throw new InputError('data', `${where}: '${text}' is not a number`);
-  const unit = (m[2] ?? '').trim().toLowerCase();
-  const table = col.quantity === 'temperature' ? TEMPERATURE_UNITS : col.quantity === 'time' ? TIME_UNITS : STRESS_UNITS;
-  const canon = col.quantity === 'compliance' ? (unit in COMPLIANCE_PER_MPA ? unit : undefined) : table[unit];
+  const unitText = (m[2] ?? '').trim();
+  let canon: string | undefined;
+  if (col.quantity === 'compliance') canon = unitText.toLowerCase() in COMPLIANCE_PER_MPA ? unitText.toLowerCase() : undefined;
+  else {
+    try {
+      canon = unitFor(unitText, col.quantity === 'modulus' ? 'stress' : col.quantity, 'data');
+    } catch {
+      canon = undefined;
+    }
+  }
   if (canon !== col.unit) {
     throw new InputError(
       'data',
@@ -212,8 +212,17 @@ function readCell(v: unknown, col: Column, row: number): number {
 
 function convert(x: number, col: Column, where: string): number {
   switch (col.quantity) {
-    case 'temperature':
-      return parseTemperatureK(`${x} ${col.unit}`, where);
+    case 'temperature': {
+      const K = parseTemperatureK(`${x} ${col.unit}`, where);
+      const [lo, hi] = MODEL_TEMPERATURE_K;
+      if (K < lo - 1e-9 || K > hi + 1e-9) {
+        throw new InputError(
+          'data',
+          `${where}: ${x} ${col.unit} is outside the model's range ${lo - 273.15} to ${hi - 273.15} degC; check the unit of the column`,
+        );
+      }
+      return K;
+    }
     case 'time':
       return parseTimeS(`${x} ${col.unit}`, where);
     case 'modulus':

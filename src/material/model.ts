@@ -39,6 +39,14 @@ const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
 /** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
 export const MELT_TAIL_K = 2;
 
+/**
+ * Modulus below which a material has relaxed to nothing (a melt), MPa. Set here: 1 kPa, a hundredth of
+ * the lowest plateau a parameter record accepts (0.01 MPa) and far below an entanglement plateau
+ * (about 1 MPa; Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 13, from memory): below
+ * it a modulus is no stiffness to design with, nor a reference to divide by.
+ */
+export const RELAXED_MPA = 1e-3;
+
 export type Region = 'glassy' | 'transition' | 'rubbery' | 'flow' | 'crystalline' | 'melting';
 export const REGIONS: readonly Region[] = ['glassy', 'transition', 'rubbery', 'flow', 'crystalline', 'melting'];
 

@@ -20,6 +20,7 @@
 import { InputError, SolverError } from '../base/errors.js';
 import { nnls } from '../numeric/nnls.js';
 import { brentRoot } from '../numeric/roots.js';
+import { maxOf, minOf } from '../numeric/arrays.js';
 
 /** One Maxwell element: modulus E (MPa) and relaxation time tau (s). */
 export interface PronyTerm {
@@ -163,8 +164,8 @@ export function fitProny(timesS: readonly number[], moduliMPa: readonly number[]
   }
   const perDecade = options.termsPerDecade ?? 1;
   if (!(perDecade > 0 && perDecade <= 10)) throw new InputError('termsPerDecade', `must be between 0 and 10, got ${perDecade}`);
-  const lo = Math.log10(Math.min(...timesS));
-  const hi = Math.log10(Math.max(...timesS));
+  const lo = Math.log10(minOf(timesS));
+  const hi = Math.log10(maxOf(timesS));
   const a = options.tauMinS !== undefined ? Math.log10(options.tauMinS) : Math.floor(lo);
   const b = options.tauMaxS !== undefined ? Math.log10(options.tauMaxS) : Math.ceil(hi);
   if (!(b >= a)) throw new InputError('tauMax', 'must not be below tauMin');

@@ -22,12 +22,13 @@
 import { InputError, ParameterError } from '../base/errors.js';
 import type { Material } from './model.js';
 import { DATASHEET_TIME_S, evaluateClocks, T23_K } from './model.js';
-import type { MaterialParams } from './params.js';
+import { fieldSpec, type MaterialParams } from './params.js';
 import { pronyGlassyMPa, pronyModulusMPa, type PronySeries } from './prony.js';
 import { brentRoot } from '../numeric/roots.js';
-import { rereferenceWlf, SHIFT_LAWS, wlfLog10, type ShiftConstants, type ShiftLaw } from './shift.js';
+import { maxOf, minOf } from '../numeric/arrays.js';
+import { rereferenceWlf, SHIFT_LAWS, WLF_REF_C1_RANGE, WLF_REF_C2_RANGE_K, wlfLog10, type ShiftConstants, type ShiftLaw } from './shift.js';
 import { blankParams } from './families.js';
-import { KELVIN_OFFSET } from '../base/units.js';
+import { KELVIN_OFFSET, MODEL_TEMPERATURE_K } from '../base/units.js';
 
 /** A Prony-series material (times in s at the reference temperature, moduli MPa, WLF constants at the reference). */
 export interface PronyMaterialSpec {
@@ -54,6 +55,36 @@ function need(v: number | null, field: string, law: string): number {
   return v;
 }
 
+/**
+ * Most terms a Prony series may have. Set here: FITCURVES writes one to four per decade over the
+ * decades of the data (some 100 at most); the exact creep conversion costs the square of the count.
+ */
+export const MAX_PRONY_TERMS = 1000;
+
+/** A shift constant inside its bounds (those of the parameter record, or of the master-curve fit). */
+function within(v: number | null, field: string, [lo, hi]: readonly [number, number], unit: string, what: string): void {
+  if (v === null) return;
+  if (!Number.isFinite(v) || v < lo || v > hi) {
+    throw new ParameterError(
+      field,
+      `${v}${unit} is outside ${lo} to ${hi}${unit} (${what}); stiffness would not fall with temperature as it must`,
+      v,
+    );
+  }
+}
+
+/** Checks every shift constant of a spec against the same bounds a parameter block has, so that a_T falls with T. */
+function checkShiftConstants(spec: PronyMaterialSpec): void {
+  const [loK, hiK] = MODEL_TEMPERATURE_K;
+  within(spec.referenceC, 'reference_C', [loK - KELVIN_OFFSET, hiK - KELVIN_OFFSET], ' degC', "the model's temperature range");
+  const tg = fieldSpec('Tg_C');
+  within(spec.TgC, 'Tg_C', [tg.min, tg.max], ' degC', tg.description);
+  const ea = fieldSpec('Ea_kJmol');
+  within(spec.EakJmol, 'Ea_kJmol', [ea.min, ea.max], ' kJ/mol', ea.description);
+  within(spec.C1, 'C1', WLF_REF_C1_RANGE, '', 'WLF C1 with reference_C as reference');
+  within(spec.C2K, 'C2_K', WLF_REF_C2_RANGE_K, ' K', 'WLF C2 with reference_C as reference');
+}
+
 /** Checks a spec and compiles it into a material the engine evaluates (cached per spec object). */
 export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
   const cached = compiled.get(spec);
@@ -65,6 +96,12 @@ export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
   }
   if (!(p.EinfMPa >= 0) || !Number.isFinite(p.EinfMPa)) throw new ParameterError('E_inf_MPa', `must be zero or positive, got ${p.EinfMPa}`);
   if (p.terms.length === 0) throw new ParameterError('tau_s', 'the series needs at least one term');
+  if (p.terms.length > MAX_PRONY_TERMS) {
+    throw new ParameterError(
+      'tau_s',
+      `the series has ${p.terms.length} terms; at most ${MAX_PRONY_TERMS} are accepted (a fit needs one to four per decade of time)`,
+    );
+  }
   p.terms.forEach((t, i) => {
     if (!(t.tauS > 0) || !Number.isFinite(t.tauS))
       throw new ParameterError('tau_s', `term ${i + 1}: must be a positive time in s, got ${t.tauS}`);
@@ -76,6 +113,7 @@ export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
   if (!SHIFT_LAWS.includes(spec.shiftLaw)) {
     throw new ParameterError('shiftLaw', `must be one of ${SHIFT_LAWS.join(', ')}, got '${String(spec.shiftLaw)}'`);
   }
+  checkShiftConstants(spec);
   const TrefK = spec.referenceC + KELVIN_OFFSET;
   let shift: ShiftConstants;
   let timeFactor = 1;
@@ -84,7 +122,6 @@ export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
   } else {
     const C1 = need(spec.C1, 'C1', spec.shiftLaw);
     const C2 = need(spec.C2K, 'C2_K', spec.shiftLaw);
-    if (!(C1 > 0) || !(C2 > 0)) throw new ParameterError('C1', `WLF constants must be positive, got C1 ${C1}, C2 ${C2} K`);
     if (spec.shiftLaw === 'wlf') {
       shift = { law: 'wlf', TrefK, C1, C2K: C2, EakJ: spec.EakJmol ?? 300 };
     } else {
@@ -149,8 +186,8 @@ function halfwayTime(p: PronySeries): number {
   const Eg = pronyGlassyMPa(p);
   const target = Math.sqrt(Eg * Math.max(p.EinfMPa, Eg / 1000));
   const taus = p.terms.map((t) => t.tauS);
-  const lo = Math.log10(Math.min(...taus)) - 6;
-  const hi = Math.log10(Math.max(...taus)) + 6;
+  const lo = Math.log10(minOf(taus)) - 6;
+  const hi = Math.log10(maxOf(taus)) + 6;
   const r = brentRoot((u) => Math.log(pronyModulusMPa(p, 10 ** u) / target), lo, hi);
   return r.converged ? 10 ** r.root : 10 ** ((lo + hi) / 2);
 }

@@ -23,6 +23,15 @@ export interface ShiftConstants {
   readonly EakJ: number;
 }
 
+/**
+ * Bounds of WLF C1 and C2 (K) referred to a master curve's reference temperature: the search box of the
+ * master-curve fit and the check on a Prony table's constants. Set here, wide: the published constants
+ * at Tg run from about 5 to 35 for C1 and 25 to 240 K for C2 (Ferry, Viscoelastic Properties of Polymers,
+ * 3rd ed. 1980, Table 11-II, from memory), and referring them to a higher reference lowers C1 and raises C2.
+ */
+export const WLF_REF_C1_RANGE: readonly [number, number] = [0.5, 60];
+export const WLF_REF_C2_RANGE_K: readonly [number, number] = [5, 500];
+
 /** Closest approach to the WLF singularity T - Tr = -C2 that pure WLF accepts, kelvin. */
 export const WLF_SINGULARITY_MARGIN_K = 1;
 

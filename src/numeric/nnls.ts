@@ -10,6 +10,7 @@
  * Columns are scaled to unit norm and b to unit norm, so the tolerances below are relative.
  */
 import { SolverError } from '../base/errors.js';
+import { maxOf } from './arrays.js';
 
 /** Optimality tolerance on the scaled gradient A^T (b - A x) (relative). */
 export const NNLS_KKT_TOL = 1e-10;
@@ -131,7 +132,7 @@ export function nnls(A: readonly (readonly number[])[], b: readonly number[]): N
   }
   const r = residual();
   const w = gradient(r);
-  const kktViolation = Math.max(0, ...w.map((g, j) => (x[j]! > 0 ? Math.abs(g) : Math.max(0, g))));
+  const kktViolation = Math.max(0, maxOf(w.map((g, j) => (x[j]! > 0 ? Math.abs(g) : Math.max(0, g)))));
   if (!(kktViolation <= 1e-6)) throw new SolverError('non-negative least squares did not reach the optimum', iterations, kktViolation);
   return {
     x: x.map((v, j) => v * scale[j]! * bNorm),

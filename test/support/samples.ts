@@ -42,6 +42,9 @@ export const VALID_BY_NAME: Record<string, unknown> = {
   creep_modulus: null,
   reference: null,
   terms_per_decade: null,
+  // EQTIME's default, the hottest segment: a drawn reference far colder than the cycle is refused (history.ts), so the
+  // drawn calls would seldom reach an answer; RATIO's ref_temperature takes its 23 degC default when empty.
+  ref_temperature: null,
 };
 
 export function validArgs(def: FunctionDef): unknown[] {
