@@ -12,8 +12,13 @@ import { gzipSync } from 'node:zlib';
 import { functionFiles, loadsOnFirstCall } from '../functions-files.mjs';
 import { metadataProblems, withoutGeneratorDefaults } from '../office-schemas.mjs';
 
-/** Size budget of the functions script (decimal kilobytes). */
-export const BUDGET = { minifiedKB: 300, gzipKB: 92 };
+/**
+ * Size budget of the functions script (decimal kilobytes). Raised from 300 / 90 kB when one input layer
+ * (src/input/) and the engine's range checks of issue 11 moved into it (about 299.6 / 92.0 kB with them):
+ * those checks are what keeps a bad cell from becoming a plausible number, so they stay in the start-up
+ * script; the next saving to look at is the mathjs unit system (most of the engine chunk's weight).
+ */
+export const BUDGET = { minifiedKB: 320, gzipKB: 97 };
 
 export async function functionsMetadata(files = functionFiles()) {
   const result = await generateCustomFunctionsMetadata(files);
