@@ -32,6 +32,14 @@ export const SRC = {
   glassyModulus: 'common practice: glassy modulus of organic polymers, 1 to 4 GPa (Tobolsky 1960, from memory)',
   ferryPS: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: polystyrene (from memory)',
   ferryNR: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: natural rubber (from memory)',
+  glassySlope:
+    'from memory: fall of the DMA storage modulus (ISO 6721) of unfilled grades between 23 degC and some 20 K below Tg, about 0.1 to 0.4 % per K; applied as a vertical factor (Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 11)',
+  glassySlopePMMA:
+    'from memory: PMMA loses modulus faster below Tg than other glasses because its beta relaxation (ester side group) lies near room temperature; about 0.6 % per K in DMA',
+  glassySlopeHighTg:
+    'from memory: the high-Tg aromatic glasses (PSU, PESU, PEI, PEEK below Tg) keep their modulus best, about 0.1 to 0.15 % per K in DMA',
+  fictive:
+    'set here: the simulated HDT bar is annealed (fictive temperature at Tg) and has no memory of it (x = 1) until the as-moulded state is tuned',
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
 } as const;
 
@@ -60,7 +68,16 @@ interface Entry {
 
 const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: SourceMap }> = {
   amorphous: {
-    values: { Ea_kJmol: 600, beta: 0.4, plateau_MPa: 2, flowDecades: 4, flowBeta: 0.6, creepN: 0.012, creepEa_kJmol: 60 },
+    values: {
+      Ea_kJmol: 600,
+      beta: 0.4,
+      plateau_MPa: 2,
+      flowDecades: 4,
+      flowBeta: 0.6,
+      creepN: 0.012,
+      creepEa_kJmol: 60,
+      glassySlope_perK: 0.002,
+    },
     sources: {},
   },
   semicrystalline: {
@@ -74,11 +91,12 @@ const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: So
       creepEa_kJmol: 60,
       crystalContinuity: 1,
       meltSharpness: 8,
+      glassySlope_perK: 0.002,
     },
     sources: {},
   },
   crosslinked: {
-    values: { Ea_kJmol: 600, beta: 0.3, creepN: 0.008, creepEa_kJmol: 60 },
+    values: { Ea_kJmol: 600, beta: 0.3, creepN: 0.008, creepEa_kJmol: 60, glassySlope_perK: 0.002 },
     sources: {},
   },
 };
@@ -120,12 +138,34 @@ const ENTRIES: Entry[] = [
     kind: 'amorphous',
     Tg: [100, 95, 105],
     E23: [3200, 3000, 3400],
-    set: { C1: 13.7, C2_K: 50 },
+    set: { C1: 13.7, C2_K: 50, glassySlope_perK: 0.003 },
     src: { C1: SRC.ferryPS, C2_K: SRC.ferryPS },
   },
-  { id: 'PMMA', name: 'poly(methyl methacrylate)', kind: 'amorphous', Tg: [110, 100, 120], E23: [3100, 2700, 3300] },
-  { id: 'PC', name: 'polycarbonate (bisphenol A)', kind: 'amorphous', Tg: [147, 145, 150], E23: [2350, 2200, 2500] },
-  { id: 'PVC-U', name: 'poly(vinyl chloride), unplasticized', kind: 'amorphous', Tg: [80, 75, 85], E23: [3000, 2700, 3300] },
+  {
+    id: 'PMMA',
+    name: 'poly(methyl methacrylate)',
+    kind: 'amorphous',
+    Tg: [110, 100, 120],
+    E23: [3100, 2700, 3300],
+    set: { glassySlope_perK: 0.006 },
+    src: { glassySlope_perK: SRC.glassySlopePMMA },
+  },
+  {
+    id: 'PC',
+    name: 'polycarbonate (bisphenol A)',
+    kind: 'amorphous',
+    Tg: [147, 145, 150],
+    E23: [2350, 2200, 2500],
+    set: { glassySlope_perK: 0.0015 },
+  },
+  {
+    id: 'PVC-U',
+    name: 'poly(vinyl chloride), unplasticized',
+    kind: 'amorphous',
+    Tg: [80, 75, 85],
+    E23: [3000, 2700, 3300],
+    set: { glassySlope_perK: 0.004 },
+  },
   {
     id: 'ABS',
     name: 'acrylonitrile-butadiene-styrene',
@@ -133,10 +173,35 @@ const ENTRIES: Entry[] = [
     Tg: [105, 100, 110],
     E23: [2300, 2000, 2600],
     note: 'Tg of the SAN phase',
+    set: { glassySlope_perK: 0.004 },
   },
-  { id: 'PSU', name: 'polysulfone', kind: 'amorphous', Tg: [187, 185, 190], E23: [2500, 2400, 2700] },
-  { id: 'PESU', name: 'polyethersulfone', kind: 'amorphous', Tg: [222, 220, 225], E23: [2700, 2600, 2900] },
-  { id: 'PEI', name: 'polyetherimide', kind: 'amorphous', Tg: [216, 215, 217], E23: [3200, 3000, 3400] },
+  {
+    id: 'PSU',
+    name: 'polysulfone',
+    kind: 'amorphous',
+    Tg: [187, 185, 190],
+    E23: [2500, 2400, 2700],
+    set: { glassySlope_perK: 0.0015 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
+  },
+  {
+    id: 'PESU',
+    name: 'polyethersulfone',
+    kind: 'amorphous',
+    Tg: [222, 220, 225],
+    E23: [2700, 2600, 2900],
+    set: { glassySlope_perK: 0.0012 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
+  },
+  {
+    id: 'PEI',
+    name: 'polyetherimide',
+    kind: 'amorphous',
+    Tg: [216, 215, 217],
+    E23: [3200, 3000, 3400],
+    set: { glassySlope_perK: 0.0012 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
+  },
   {
     id: 'PA6-dry',
     name: 'polyamide 6, dry as moulded',
@@ -163,7 +228,7 @@ const ENTRIES: Entry[] = [
     Tg: [60, 50, 70],
     Tm: [260, 255, 265],
     E23: [3100, 2800, 3500],
-    set: { crystallinity: 0.4, meltSharpness: 7 },
+    set: { crystallinity: 0.4, meltSharpness: 9 },
   },
   {
     id: 'PA66-cond',
@@ -229,7 +294,8 @@ const ENTRIES: Entry[] = [
     Tg: [143, 143, 145],
     Tm: [340, 335, 343],
     E23: [3700, 3500, 4000],
-    set: { crystallinity: 0.35 },
+    set: { crystallinity: 0.35, glassySlope_perK: 0.0012 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
   },
   {
     id: 'PTFE',
@@ -313,6 +379,9 @@ const BASE_SOURCES: SourceMap = {
   crystallinity: SRC.crystallinity,
   crystalContinuity: SRC.continuity,
   meltSharpness: SRC.melt,
+  glassySlope_perK: SRC.glassySlope,
+  fictiveExcess_K: SRC.fictive,
+  tnmX: SRC.fictive,
 };
 
 /** A record with every field empty (null) or at its neutral default; the base of every family. */
@@ -341,6 +410,9 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
     creepEa_kJmol: 60,
     density_kgm3: 1000,
     Mc_kgmol: 1,
+    glassySlope_perK: 0,
+    fictiveExcess_K: 0,
+    tnmX: 1,
     Tg_low_C: null,
     Tg_high_C: null,
     Tm_low_C: null,

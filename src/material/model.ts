@@ -39,6 +39,13 @@ const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
 /** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
 export const MELT_TAIL_K = 2;
 
+/**
+ * Kelvin below min(23 degC, Tg) at which the glassy modulus stops rising on cooling (set here: the fall with
+ * temperature is read from DMA slopes between about -50 degC and Tg; further down the secondary relaxations
+ * freeze and the curve flattens, so the factor is held there and the modulus stays bounded).
+ */
+export const GLASS_SLOPE_SPAN_K = 100;
+
 export type Region = 'glassy' | 'transition' | 'rubbery' | 'flow' | 'crystalline' | 'melting';
 export const REGIONS: readonly Region[] = ['glassy', 'transition', 'rubbery', 'flow', 'crystalline', 'melting'];
 
@@ -47,7 +54,12 @@ export interface Material {
   readonly params: MaterialParams;
   readonly kind: Kind;
   readonly shift: ShiftConstants;
+  /** Glassy modulus at the cold end of the slope (the upper bound of E), MPa. */
   readonly EgMPa: number;
+  /** Fractional fall of the glassy and crystal moduli per kelvin (vertical factor; absent on a Prony material). */
+  readonly glassSlope?: number;
+  /** Temperature below which the vertical factor is held, K. */
+  readonly glassLowK?: number;
   readonly tauTg: number;
   readonly beta: number;
   readonly tauFlow: number;
@@ -97,13 +109,20 @@ export function compileMaterial(params: MaterialParams): Material {
   return material;
 }
 
-function build(p: MaterialParams, EgMPa: number): Material {
+/**
+ * The material with its glassy modulus given at min(23 degC, Tg) (MPa); the stored EgMPa is the value at
+ * the cold end of the slope, GLASS_SLOPE_SPAN_K lower.
+ */
+function build(p: MaterialParams, EgRefMPa: number): Material {
   const TgK = p.Tg_C + KELVIN_OFFSET;
+  const glassLowK = Math.min(T23_K, TgK) - GLASS_SLOPE_SPAN_K;
   return {
     params: p,
     kind: p.kind,
     shift: { law: p.shiftLaw, TrefK: TgK, C1: p.C1, C2K: p.C2_K, EakJ: p.Ea_kJmol },
-    EgMPa,
+    EgMPa: EgRefMPa * Math.exp(p.glassySlope_perK * GLASS_SLOPE_SPAN_K),
+    glassSlope: p.glassySlope_perK,
+    glassLowK,
     tauTg: p.tauTg_s,
     beta: p.beta,
     tauFlow: p.tauTg_s * 10 ** p.flowDecades,
@@ -125,14 +144,28 @@ function build(p: MaterialParams, EgMPa: number): Material {
 
 function checkGlassy(m: Material): Material {
   const rubber = Math.max(m.plateau, m.networkMPaPerK * T23_K);
-  if (m.EgMPa < 10 * rubber) {
+  const EgAtTg = m.EgMPa * verticalFactor(m, m.shift.TrefK, m.shift.TrefK);
+  if (EgAtTg < 10 * rubber) {
     throw new ParameterError(
       'Eg_MPa',
-      `${m.EgMPa} MPa must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa)`,
-      m.EgMPa,
+      `${Number(EgAtTg.toPrecision(4))} MPa (the glassy modulus at Tg) must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa); lower glassySlope_perK or raise the modulus`,
+      m.params.Eg_MPa ?? m.params.E23_MPa ?? m.EgMPa,
     );
   }
   return m;
+}
+
+/**
+ * Vertical factor of the glassy (or crystal) modulus at T (K), 1 at the cold end and falling by the
+ * slope per kelvin up to topK (Tg for the glass, Tm for crystals), constant above: a temperature-dependent
+ * modulus scale in the sense of Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 11.
+ */
+export function verticalFactor(m: Material, TK: number, topK: number): number {
+  const s = m.glassSlope ?? 0;
+  if (s === 0) return 1;
+  const low = m.glassLowK ?? 0;
+  const Tc = TK < low ? low : TK > topK ? topK : TK;
+  return Math.exp(-s * (Tc - low));
 }
 
 /** Solves the glassy modulus so that E(23 degC, datasheet time) equals E23 (MPa). */
@@ -226,9 +259,10 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   const g = m.creepN === 0 ? 1 : Math.exp(-m.creepN * Math.log1p(theta));
   p.G = G;
   p.g = g;
+  const Eg = m.EgMPa * verticalFactor(m, TK, m.shift.TrefK);
   if (m.kind === 'crosslinked') {
     const Er = m.networkMPaPerK * TK;
-    p.glassy = g * Math.max(0, m.EgMPa - Er) * G;
+    p.glassy = g * Math.max(0, Eg - Er) * G;
     p.rubbery = Er;
     p.F = 1;
     p.remaining = 0;
@@ -236,7 +270,7 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
     return p.glassy + Er;
   }
   const F = Math.exp(-Math.exp(m.flowBeta * (lnX - m.lnFlowRatio)));
-  const glassy = g * (m.EgMPa - m.plateau) * G;
+  const glassy = g * Math.max(0, Eg - m.plateau) * G;
   const rubbery = g * m.plateau * F;
   const Ea = glassy + rubbery;
   p.F = F;
@@ -250,7 +284,7 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
   const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
   const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
-  const Ec = g * m.EgMPa;
+  const Ec = g * m.EgMPa * verticalFactor(m, TK, m.TmK);
   const lambda = (m.crystallinity * remaining) / m.phi;
   const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
   p.remaining = remaining;

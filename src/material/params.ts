@@ -33,6 +33,9 @@ export interface MaterialParams {
   creepEa_kJmol: number;
   density_kgm3: number;
   Mc_kgmol: number;
+  glassySlope_perK: number;
+  fictiveExcess_K: number;
+  tnmX: number;
   Tg_low_C: number | null;
   Tg_high_C: number | null;
   Tm_low_C: number | null;
@@ -202,6 +205,33 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     description: 'density, for the network modulus 3 rho R T / Mc',
   },
   { key: 'Mc_kgmol', unit: 'kg/mol', min: 0.05, max: 100, optional: false, kinds: XL, description: 'molar mass between crosslinks' },
+  {
+    key: 'glassySlope_perK',
+    unit: '1/K',
+    min: 0,
+    max: 0.01,
+    optional: false,
+    kinds: ALL,
+    description: 'fractional fall of the glassy (and crystal) modulus per kelvin below Tg (DMA storage-modulus slope)',
+  },
+  {
+    key: 'fictiveExcess_K',
+    unit: 'K',
+    min: 0,
+    max: 60,
+    optional: false,
+    kinds: ALL,
+    description: 'fictive temperature of an as-moulded HDT bar above Tg (0 = a glass formed at the DSC rate); the simulated HDT only',
+  },
+  {
+    key: 'tnmX',
+    unit: '-',
+    min: 0.1,
+    max: 1,
+    optional: false,
+    kinds: ALL,
+    description: 'Tool-Narayanaswamy-Moynihan nonlinearity x of the as-moulded glass (1 = no memory of its fictive temperature); HDT only',
+  },
   { key: 'Tg_low_C', unit: 'degC', min: -150, max: 400, optional: true, kinds: ALL, description: 'low end of the Tg range, for the band' },
   {
     key: 'Tg_high_C',
