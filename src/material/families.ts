@@ -32,14 +32,16 @@ export const SRC = {
   glassyModulus: 'common practice: glassy modulus of organic polymers, 1 to 4 GPa (Tobolsky 1960, from memory)',
   ferryPS: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: polystyrene (from memory)',
   ferryNR: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: natural rubber (from memory)',
-  glassySlope:
-    'from memory: fall of the DMA storage modulus (ISO 6721) of unfilled grades between 23 degC and some 20 K below Tg, about 0.1 to 0.4 % per K; applied as a vertical factor (Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 11)',
-  glassySlopePMMA:
-    'from memory: PMMA loses modulus faster below Tg than other glasses because its beta relaxation (ester side group) lies near room temperature; about 0.6 % per K in DMA',
-  glassySlopeHighTg:
-    'from memory: the high-Tg aromatic glasses (PSU, PESU, PEI, PEEK below Tg) keep their modulus best, about 0.1 to 0.15 % per K in DMA',
-  fictive:
-    'set here: the simulated HDT bar is annealed (fictive temperature at Tg) and has no memory of it (x = 1) until the as-moulded state is tuned',
+  glassySlope: 'from memory: DMA storage-modulus slope below Tg, 0.1 to 0.4 % per K (vertical factor: Ferry 1980, ch. 11)',
+  glassySlopePMMA: 'from memory: PMMA falls faster, about 0.6 % per K, from its beta relaxation near room temperature',
+  glassySlopeHighTg: 'from memory: high-Tg aromatic polymers keep their modulus best, 0.1 to 0.15 % per K in DMA',
+  fictive: 'set here: no as-moulded state for this kind (x = 1)',
+  fictiveExcess:
+    'set here: as-moulded bar above the DSC Tg, tuned to the typical HDT values the family carries (quenched glasses 5 to 20 K: Moynihan et al. 1976, from memory)',
+  tnmX: 'from memory: TNM x of polymer glasses 0.2 to 0.5 (Hodge, J. Non-Cryst. Solids 169 (1994) 211)',
+  tauMech: 'from memory: the 1 Hz loss peak (ISO 6721-11) lies 0 to 5 K above the DSC Tg (ISO 11357-2), a mechanical time near 1 s at Tg',
+  eaGlassEq:
+    'set here: between aged-glass creep (100 to 300 kJ/mol, from memory) and the WLF slope at Tg (about 1100 kJ/mol for PC), so that with the 1 s time the 1000 h apparent Tg stays 20 to 30 K below Tg (common practice)',
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
 } as const;
 
@@ -69,7 +71,6 @@ interface Entry {
 const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: SourceMap }> = {
   amorphous: {
     values: {
-      Ea_kJmol: 600,
       beta: 0.4,
       plateau_MPa: 2,
       flowDecades: 4,
@@ -77,8 +78,12 @@ const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: So
       creepN: 0.012,
       creepEa_kJmol: 60,
       glassySlope_perK: 0.002,
+      tauTg_s: 1,
+      Ea_kJmol: 900,
+      tnmX: 0.35,
+      fictiveExcess_K: 5,
     },
-    sources: {},
+    sources: { tauTg_s: SRC.tauMech, Ea_kJmol: SRC.eaGlassEq, tnmX: SRC.tnmX, fictiveExcess_K: SRC.fictiveExcess },
   },
   semicrystalline: {
     values: {
@@ -96,8 +101,17 @@ const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: So
     sources: {},
   },
   crosslinked: {
-    values: { Ea_kJmol: 600, beta: 0.3, creepN: 0.008, creepEa_kJmol: 60, glassySlope_perK: 0.002 },
-    sources: {},
+    values: {
+      beta: 0.3,
+      creepN: 0.008,
+      creepEa_kJmol: 60,
+      glassySlope_perK: 0.002,
+      tauTg_s: 1,
+      Ea_kJmol: 900,
+      tnmX: 0.35,
+      fictiveExcess_K: 5,
+    },
+    sources: { tauTg_s: SRC.tauMech, Ea_kJmol: SRC.eaGlassEq, tnmX: SRC.tnmX, fictiveExcess_K: SRC.fictiveExcess },
   },
 };
 
@@ -181,7 +195,7 @@ const ENTRIES: Entry[] = [
     kind: 'amorphous',
     Tg: [187, 185, 190],
     E23: [2500, 2400, 2700],
-    set: { glassySlope_perK: 0.0015 },
+    set: { fictiveExcess_K: 0, glassySlope_perK: 0.0015 },
     src: { glassySlope_perK: SRC.glassySlopeHighTg },
   },
   {
@@ -190,7 +204,7 @@ const ENTRIES: Entry[] = [
     kind: 'amorphous',
     Tg: [222, 220, 225],
     E23: [2700, 2600, 2900],
-    set: { glassySlope_perK: 0.0012 },
+    set: { fictiveExcess_K: 0, glassySlope_perK: 0.0012 },
     src: { glassySlope_perK: SRC.glassySlopeHighTg },
   },
   {
@@ -199,7 +213,7 @@ const ENTRIES: Entry[] = [
     kind: 'amorphous',
     Tg: [216, 215, 217],
     E23: [3200, 3000, 3400],
-    set: { glassySlope_perK: 0.0012 },
+    set: { fictiveExcess_K: 0, glassySlope_perK: 0.0012 },
     src: { glassySlope_perK: SRC.glassySlopeHighTg },
   },
   {

@@ -40,7 +40,7 @@ const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
 export const MELT_TAIL_K = 2;
 
 /**
- * Kelvin below min(23 degC, Tg) at which the glassy modulus stops rising on cooling (set here: the fall with
+ * Kelvin below 23 degC at which the glassy modulus stops rising on cooling (set here: the fall with
  * temperature is read from DMA slopes between about -50 degC and Tg; further down the secondary relaxations
  * freeze and the curve flattens, so the factor is held there and the modulus stays bounded).
  */
@@ -110,12 +110,13 @@ export function compileMaterial(params: MaterialParams): Material {
 }
 
 /**
- * The material with its glassy modulus given at min(23 degC, Tg) (MPa); the stored EgMPa is the value at
- * the cold end of the slope, GLASS_SLOPE_SPAN_K lower.
+ * The material with its glassy modulus given at 23 degC (MPa; extrapolated along the slope where Tg is
+ * lower); the stored EgMPa is the value at the cold end of the slope, GLASS_SLOPE_SPAN_K lower. Materials
+ * that differ only in Tg (dry and conditioned polyamides) thus share the glassy and crystal moduli.
  */
 function build(p: MaterialParams, EgRefMPa: number): Material {
   const TgK = p.Tg_C + KELVIN_OFFSET;
-  const glassLowK = Math.min(T23_K, TgK) - GLASS_SLOPE_SPAN_K;
+  const glassLowK = T23_K - GLASS_SLOPE_SPAN_K;
   return {
     params: p,
     kind: p.kind,
@@ -148,7 +149,7 @@ function checkGlassy(m: Material): Material {
   if (EgAtTg < 10 * rubber) {
     throw new ParameterError(
       'Eg_MPa',
-      `${Number(EgAtTg.toPrecision(4))} MPa (the glassy modulus at Tg) must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa); lower glassySlope_perK or raise the modulus`,
+      `${Number(EgAtTg.toPrecision(4))} MPa (glassy modulus at Tg) must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa)`,
       m.params.Eg_MPa ?? m.params.E23_MPa ?? m.EgMPa,
     );
   }
@@ -164,7 +165,9 @@ export function verticalFactor(m: Material, TK: number, topK: number): number {
   const s = m.glassSlope ?? 0;
   if (s === 0) return 1;
   const low = m.glassLowK ?? 0;
-  const Tc = TK < low ? low : TK > topK ? topK : TK;
+  // A Tg below the cold end holds the factor at 1 (never above it, so E stays bounded by EgMPa).
+  const top = topK > low ? topK : low;
+  const Tc = TK < low ? low : TK > top ? top : TK;
   return Math.exp(-s * (Tc - low));
 }
 

@@ -57,6 +57,11 @@ export interface FieldSpec {
   readonly optional: boolean;
   readonly kinds: readonly Kind[];
   readonly description: string;
+  /**
+   * Value given to the field when a typed record leaves it empty: the value that reproduces the model
+   * before the field existed, so that parameter blocks written earlier keep their answers.
+   */
+  readonly neutral?: number;
 }
 
 const ALL = KINDS;
@@ -212,7 +217,8 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 0.01,
     optional: false,
     kinds: ALL,
-    description: 'fractional fall of the glassy (and crystal) modulus per kelvin below Tg (DMA storage-modulus slope)',
+    neutral: 0,
+    description: 'fall of the glassy and crystal moduli per kelvin (DMA slope)',
   },
   {
     key: 'fictiveExcess_K',
@@ -221,7 +227,8 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 60,
     optional: false,
     kinds: ALL,
-    description: 'fictive temperature of an as-moulded HDT bar above Tg (0 = a glass formed at the DSC rate); the simulated HDT only',
+    neutral: 0,
+    description: 'fictive temperature of the as-moulded HDT bar above Tg (HDT only)',
   },
   {
     key: 'tnmX',
@@ -230,7 +237,8 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 1,
     optional: false,
     kinds: ALL,
-    description: 'Tool-Narayanaswamy-Moynihan nonlinearity x of the as-moulded glass (1 = no memory of its fictive temperature); HDT only',
+    neutral: 1,
+    description: 'TNM nonlinearity x of the HDT bar (1 = no memory of its fictive temperature)',
   },
   { key: 'Tg_low_C', unit: 'degC', min: -150, max: 400, optional: true, kinds: ALL, description: 'low end of the Tg range, for the band' },
   {
