@@ -6,6 +6,8 @@
 import { UnknownFamilyError } from '../base/errors.js';
 import type { Kind, MaterialParams, NumericField } from './params.js';
 import { WLF_UNIVERSAL_C1, WLF_UNIVERSAL_C2_K } from './shift.js';
+import { compileMaterial, DATASHEET_TIME_S, GLASS_SLOPE_SPAN_K, modulusMPa, T23_K } from './model.js';
+import { KELVIN_OFFSET } from '../base/units.js';
 
 export const SRC = {
   handbookTg:
@@ -42,6 +44,10 @@ export const SRC = {
   tauMech: 'from memory: the 1 Hz loss peak (ISO 6721-11) lies 0 to 5 K above the DSC Tg (ISO 11357-2), a mechanical time near 1 s at Tg',
   eaGlassEq:
     'set here: between aged-glass creep (100 to 300 kJ/mol, from memory) and the WLF slope at Tg (about 1100 kJ/mol for PC), so that with the 1 s time the 1000 h apparent Tg stays 20 to 30 K below Tg (common practice)',
+  gordonTaylor:
+    'Gordon-Taylor, J. Appl. Chem. 2 (1952) 493, with water (Tg 136 K) in the amorphous phase only; the water content at 23 degC / 50 % RH is a typical datasheet value (from memory)',
+  sharedModuli:
+    "derived: the dry grade's glassy and crystal moduli at the conditioned Tg (water plasticizes only the amorphous phase); the datasheet conditioned modulus is a check value",
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
 } as const;
 
@@ -66,6 +72,12 @@ interface Entry {
   Eg?: number;
   set?: Partial<MaterialParams>;
   src?: SourceMap;
+  /**
+   * A moisture-conditioned grade: the dry family it shares its glassy and crystal moduli with, and its
+   * water content (mass fraction of the whole part); Tg then follows from Gordon-Taylor, everything else
+   * is the dry grade's, and Tg and E23 above are the handbook and datasheet values it is checked against.
+   */
+  conditioned?: { from: string; water: number };
 }
 
 const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: SourceMap }> = {
@@ -232,8 +244,8 @@ const ENTRIES: Entry[] = [
     Tg: [10, 0, 20],
     Tm: [222, 220, 225],
     E23: [1100, 900, 1400],
-    set: { crystallinity: 0.35 },
-    src: { Tg_C: SRC.moisture, E23_MPa: SRC.moisture },
+    src: { Tg_C: SRC.gordonTaylor, E23_MPa: SRC.sharedModuli },
+    conditioned: { from: 'PA6-dry', water: 0.028 },
   },
   {
     id: 'PA66-dry',
@@ -251,8 +263,8 @@ const ENTRIES: Entry[] = [
     Tg: [20, 10, 30],
     Tm: [260, 255, 265],
     E23: [1500, 1200, 1800],
-    set: { crystallinity: 0.4, meltSharpness: 7 },
-    src: { Tg_C: SRC.moisture, E23_MPa: SRC.moisture },
+    src: { Tg_C: SRC.gordonTaylor, E23_MPa: SRC.sharedModuli },
+    conditioned: { from: 'PA66-dry', water: 0.025 },
   },
   {
     id: 'POM',
@@ -436,7 +448,56 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
   };
 }
 
-function toFamily(e: Entry): Family {
+/** Tg of amorphous water, K (Johari, Hallbrucker and Mayer, Nature 330 (1987) 552; from memory). */
+export const WATER_TG_K = 136;
+/**
+ * Gordon-Taylor constant of water in an aliphatic polyamide (set here: it gives PA6 at 23 degC / 50 % RH,
+ * 2.8 % water, the handbook conditioned Tg of 10 degC; water is a far stronger plasticizer than its Tg
+ * alone suggests, from memory).
+ */
+export const GORDON_TAYLOR_K_WATER = 6.8;
+
+/**
+ * Tg (degC) of a polymer plasticized by water: Gordon-Taylor, Tg = (w1 Tg1 + k w2 Tg2) / (w1 + k w2), with
+ * the water mass fraction w2 taken in the amorphous phase (crystals take up none).
+ */
+export function gordonTaylorTgC(dryTgC: number, waterFraction: number, crystallinity: number, k = GORDON_TAYLOR_K_WATER): number {
+  const w2 = waterFraction / (1 - crystallinity);
+  const w1 = 1 - w2;
+  return (w1 * (dryTgC + KELVIN_OFFSET) + k * w2 * WATER_TG_K) / (w1 + k * w2) - KELVIN_OFFSET;
+}
+
+/** The conditioned record: the dry grade with the Gordon-Taylor Tg and the same glassy and crystal moduli. */
+function conditionedFrom(dry: MaterialParams, p: MaterialParams, water: number): void {
+  // Rounded to 0.1 K, the precision a Tg is quoted to.
+  const dTg = Math.round((gordonTaylorTgC(dry.Tg_C, water, dry.crystallinity) - dry.Tg_C) * 10) / 10;
+  const m = compileMaterial(dry);
+  // The glassy modulus at 23 degC (extrapolated along the slope), shared with the dry grade.
+  const Eg23 = m.EgMPa / Math.exp(dry.glassySlope_perK * GLASS_SLOPE_SPAN_K);
+  const Tg_C = dry.Tg_C + dTg;
+  const wet = compileMaterial({
+    ...dry,
+    Tg_C,
+    Tg_low_C: null,
+    Tg_high_C: null,
+    E23_MPa: null,
+    E23_low_MPa: null,
+    E23_high_MPa: null,
+    Eg_MPa: Eg23,
+  });
+  const E23 = modulusMPa(wet, DATASHEET_TIME_S, T23_K);
+  const scale = E23 / (dry.E23_MPa ?? E23);
+  Object.assign(p, {
+    Tg_C,
+    Tg_low_C: dry.Tg_low_C === null ? null : dry.Tg_low_C + dTg,
+    Tg_high_C: dry.Tg_high_C === null ? null : dry.Tg_high_C + dTg,
+    E23_MPa: E23,
+    E23_low_MPa: dry.E23_low_MPa === null ? null : dry.E23_low_MPa * scale,
+    E23_high_MPa: dry.E23_high_MPa === null ? null : dry.E23_high_MPa * scale,
+  });
+}
+
+function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
   const d = KIND_DEFAULTS[e.kind];
   const p: MaterialParams = { ...blankParams(e.id, e.kind), ...d.values, name: e.name };
   [p.Tg_C, p.Tg_low_C, p.Tg_high_C] = e.Tg;
@@ -444,6 +505,13 @@ function toFamily(e: Entry): Family {
   if (e.E23) [p.E23_MPa, p.E23_low_MPa, p.E23_high_MPa] = e.E23;
   if (e.Eg !== undefined) p.Eg_MPa = e.Eg;
   Object.assign(p, e.set);
+  if (e.conditioned) {
+    // Everything but Tg (and the 23 degC modulus that follows from it) is the dry grade's.
+    const dry = built.get(e.conditioned.from);
+    if (!dry) throw new Error(`family ${e.id}: the dry grade ${e.conditioned.from} must come first`);
+    Object.assign(p, dry.params, { id: e.id, name: e.name });
+    conditionedFrom(dry.params, p, e.conditioned.water);
+  }
   const sources: SourceMap = { ...BASE_SOURCES, ...d.sources, ...e.src };
   for (const key of Object.keys(sources) as NumericField[]) {
     if (p[key] === null || !isUsed(key, e.kind)) delete sources[key];
@@ -470,7 +538,14 @@ function isUsed(key: NumericField, kind: Kind): boolean {
 }
 
 /** All bundled families, in table order. */
-export const FAMILIES: readonly Family[] = ENTRIES.map(toFamily);
+export const FAMILIES: readonly Family[] = ((): Family[] => {
+  const built = new Map<string, Family>();
+  return ENTRIES.map((e) => {
+    const f = toFamily(e, built);
+    built.set(e.id, f);
+    return f;
+  });
+})();
 
 const BY_ID = new Map(FAMILIES.map((f) => [f.params.id.toLowerCase(), f]));
 
