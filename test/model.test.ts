@@ -251,3 +251,25 @@ describe('glassy modulus falling with temperature below Tg (vertical factor)', (
     }
   });
 });
+
+describe('region labels of semi-crystalline families', () => {
+  const SRC = 'common practice, from memory: the DSC melting endotherm of a moulded grade begins some 20 to 30 K below its peak';
+  it('says crystalline, not melting, 40 K and more below the melting peak (crystals intact)', () => {
+    for (const [id, C] of [
+      ['POM', 100],
+      ['PP', 100],
+      ['PE-HD', 80],
+      ['PA66-dry', 200],
+    ] as const) {
+      const m = compileMaterial(getFamily(id).params);
+      for (const t of [10, 3600, 3.6e6]) expect(evaluateClocks(m, t, C + 273.15).region, `${id} at ${C} degC: ${SRC}`).toBe('crystalline');
+    }
+  });
+  it('says melting within the melting range below the peak', () => {
+    for (const id of ['POM', 'PP', 'PE-HD', 'PA66-dry', 'PEEK']) {
+      const p = getFamily(id).params;
+      const m = compileMaterial(p);
+      expect(evaluateClocks(m, 10, (p.Tm_C ?? 0) - 5 + 273.15).region, `${id}: ${SRC}`).toBe('melting');
+    }
+  });
+});

@@ -38,6 +38,12 @@ export const MELT_REMAINING_AT_TM = 0.05;
 const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
 /** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
 export const MELT_TAIL_K = 2;
+/**
+ * Melting onset below the DSC peak, K: the region is "melting" only from Tm - MELT_ONSET_K up; below it the
+ * crystals are intact and what relaxes is the amorphous phase or the crystal alpha_c process ("crystalline").
+ * Common practice, from memory: the melting endotherm of a moulded grade begins some 20 to 30 K below its peak.
+ */
+export const MELT_ONSET_K = 25;
 
 /**
  * Kelvin below 23 degC at which the glassy modulus stops rising on cooling (set here: the fall with
@@ -249,9 +255,11 @@ interface Parts {
   glassy: number;
   rubbery: number;
   lambda: number;
+  /** At or above the melting onset (semi-crystalline). */
+  melting: boolean;
 }
 
-const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0 };
+const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0, melting: false };
 
 /**
  * Modulus (MPa) of a four-region material from its clocks, writing the contributions into p. lnX = ln(xi / tauTg)
@@ -292,6 +300,7 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
   p.remaining = remaining;
   p.lambda = lambda;
+  p.melting = TK >= m.TmK - MELT_ONSET_K;
   return lambda * series + (1 - lambda) * Ea;
 }
 
@@ -299,19 +308,11 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
 function regionOf(m: Material, E: number, p: Parts): Region {
   if (m.kind === 'crosslinked') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : 'rubbery';
   if (m.kind === 'amorphous') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : p.F >= 0.5 ? 'rubbery' : 'flow';
-  // Semi-crystalline: the amorphous phase is in transition while its glassy part carries at least a
-  // tenth of the stiffness; the crystals then hold a plateau until the melting law takes over.
-  return p.remaining < 0.5 && p.remaining >= 0.01
-    ? 'melting'
-    : p.G >= 0.9
-      ? 'glassy'
-      : (1 - p.lambda) * p.glassy >= 0.1 * E
-        ? 'transition'
-        : p.remaining >= 0.5
-          ? 'crystalline'
-          : p.F >= 0.5
-            ? 'rubbery'
-            : 'flow';
+  // Semi-crystalline: from the melting onset up, melting while crystals remain, then the melt. Below it the
+  // amorphous phase is glassy, or in transition while its glassy part carries at least a tenth of the
+  // stiffness; otherwise the intact crystals carry the part (crystalline).
+  if (p.melting) return p.remaining >= 0.01 ? 'melting' : p.F >= 0.5 ? 'rubbery' : 'flow';
+  return p.G >= 0.9 ? 'glassy' : (1 - p.lambda) * p.glassy >= 0.1 * E ? 'transition' : 'crystalline';
 }
 
 /**
