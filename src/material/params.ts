@@ -223,12 +223,12 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
   {
     key: 'fictiveExcess_K',
     unit: 'K',
-    min: 0,
+    min: -20,
     max: 60,
     optional: false,
     kinds: ALL,
     neutral: 0,
-    description: 'fictive temperature of the as-moulded HDT bar above Tg (HDT only)',
+    description: 'fictive temperature of the HDT bar above Tg (below: aged); HDT only',
   },
   {
     key: 'tnmX',
