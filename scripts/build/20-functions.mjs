@@ -12,8 +12,11 @@ import { gzipSync } from 'node:zlib';
 import { functionFiles, loadsOnFirstCall } from '../functions-files.mjs';
 import { metadataProblems, withoutGeneratorDefaults } from '../office-schemas.mjs';
 
-/** Size budget of the functions script (decimal kilobytes). */
-export const BUDGET = { minifiedKB: 300, gzipKB: 90 };
+/**
+ * Size budget of the functions script (decimal kilobytes). gzip raised from 90 to 92 kB for the model of
+ * issue 12 (as-moulded HDT state, moisture, glassy slope and their cited sources, about 1 kB gzip).
+ */
+export const BUDGET = { minifiedKB: 300, gzipKB: 92 };
 
 export async function functionsMetadata(files = functionFiles()) {
   const result = await generateCustomFunctionsMetadata(files);

@@ -31,8 +31,6 @@ export const SRC = {
   melt: 'set here so that the simulated ISO 75 HDT/A and HDT/B (1.80 / 0.45 MPa) come near typical unfilled-grade values (from memory)',
   creepEaCrystal:
     'literature: alpha relaxations of semi-crystalline polyethylene, about 110 and 190 kJ/mol; the lower value is used here for the soft semi-crystalline families (set here)',
-  moisture:
-    'from memory: conditioning at 23 degC / 50 % RH lowers the Tg of PA6 and PA66 by about 40 to 60 K and their 23 degC modulus by a factor of 2 to 3',
   network: 'from memory: typical network density of the family; E = 3 rho R T / Mc (Flory 1953; Treloar 1975)',
   glassyModulus: 'common practice: glassy modulus of organic polymers, 1 to 4 GPa (Tobolsky 1960, from memory)',
   ferryPS: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: polystyrene (from memory)',
