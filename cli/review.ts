@@ -69,4 +69,3 @@ export function computeDemo(): DemoReview {
   });
   return { serviceS, peakC, rows, checks };
 }
-
