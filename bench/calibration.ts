@@ -19,7 +19,8 @@ function datasheet(): number {
 }
 
 /** Five relaxation curves of 50 points (seeded 1 % noise), master curve, WLF and a 20-term Prony fit. */
-const truth = compileMaterial({ ...getFamily('PC').params, creepN: 0 });
+// Transition time 100 s at Tg, so that the 1 s to 3 h curves at 150 to 170 degC cross the transition.
+const truth = compileMaterial({ ...getFamily('PC').params, creepN: 0, tauTg_s: 100 });
 const rand = seededRandom(99);
 const curves: Curve[] = [150, 155, 160, 165, 170].map((c) => {
   const t = Array.from({ length: 50 }, (_, i) => 10 ** ((i * 4) / 49));

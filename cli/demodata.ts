@@ -7,7 +7,7 @@
 import { compileMaterial, getFamily, modulusMPa, storageModulusMPa, type MaterialParams } from '../src/index.js';
 import { KELVIN_OFFSET } from '../src/index.js';
 
-/** The invented grade: the PC family with a slightly different Tg, breadth and WLF constants. */
+/** The invented grade: the PC family with a slightly different Tg, breadth, WLF constants and transition time. */
 export const INVENTED_LATCH_PC: MaterialParams = {
   ...getFamily('PC').params,
   id: 'latch-PC-invented',
@@ -19,6 +19,8 @@ export const INVENTED_LATCH_PC: MaterialParams = {
   C1: 16,
   C2_K: 55,
   creepN: 0,
+  // A slower transition than the family's 1 s, so that the 10 s to 1 h invented curves cross it.
+  tauTg_s: 100,
 };
 
 /** Invented datasheet numbers of the same grade (for `calibrate`). */

@@ -47,10 +47,10 @@ describe('apparent creep modulus of the four-region model', () => {
     expectClose(a, b, { rel: 1e-3, source: 'Schapery and Park 1999 local power law (from memory); routes agree where n <= 0.1' });
     expect(localSlope(m, 3.6e6, 23 + K)).toBeLessThan(0.1);
   });
-  it('shows the lag of creep behind relaxation after the glass transition (PC at 150 degC, 1 h)', () => {
+  it('shows the lag of creep behind relaxation after the glass transition (PC at 150 degC, 1 min)', () => {
     const m = resolveMaterial('PC');
     // 1/D well above E_r: the compliance still reflects the slower part of the spectrum.
-    expect(creepModulusMPa(m, 3600, 150 + K) / modulusMPa(m, 3600, 150 + K)).toBeGreaterThan(3);
+    expect(creepModulusMPa(m, 60, 150 + K) / modulusMPa(m, 60, 150 + K)).toBeGreaterThan(3);
   });
   it('is exact for a Prony material (single Maxwell element, D = (1 + t/tau)/E0)', () => {
     const spec: PronyMaterialSpec = {

@@ -1,5 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { compileMaterial, FAMILIES, getFamily, NUMERIC_FIELDS, suggestFamilies, UnknownFamilyError } from '../src/index.js';
+import {
+  compileMaterial,
+  FAMILIES,
+  getFamily,
+  gordonTaylorTgC,
+  modulusMPa,
+  NUMERIC_FIELDS,
+  suggestFamilies,
+  UnknownFamilyError,
+  WATER_TG_K,
+} from '../src/index.js';
 
 /**
  * Typical ranges in degC from Brandrup, Immergut, Grulke (eds.), Polymer Handbook, 4th ed. 1999, as listed in the
@@ -105,6 +115,28 @@ describe('bundled family table', () => {
       expect((dry.E23_MPa ?? 0) / (cond.E23_MPa ?? 1)).toBeGreaterThanOrEqual(1.8);
       expect((dry.E23_MPa ?? 0) / (cond.E23_MPa ?? 1)).toBeLessThanOrEqual(3);
     }
+  });
+
+  it('never makes a conditioned polyamide stiffer than the dry one, at any time and temperature (water plasticizes only the amorphous phase)', () => {
+    // Common practice, from memory: moisture lowers Tg and softens the amorphous phase; the crystals are untouched.
+    for (const base of ['PA6', 'PA66']) {
+      const dry = compileMaterial(getFamily(`${base}-dry`).params);
+      const cond = compileMaterial(getFamily(`${base}-cond`).params);
+      expect(cond.EgMPa / dry.EgMPa).toBeCloseTo(1, 9);
+      for (let T = 223.15; T <= 573.15; T += 5) {
+        for (let lt = -3; lt <= 10; lt += 0.5) {
+          const t = 10 ** lt;
+          expect(modulusMPa(cond, t, T), `${base} at ${T - 273.15} degC, ${t} s`).toBeLessThanOrEqual(modulusMPa(dry, t, T) * (1 + 1e-9));
+        }
+      }
+    }
+  });
+
+  it('gives the conditioned polyamides their Tg by Gordon-Taylor with water in the amorphous phase', () => {
+    // Gordon and Taylor, J. Appl. Chem. 2 (1952) 493: Tg = (w1 Tg1 + k w2 Tg2) / (w1 + k w2); k = 1 is the plain mass average.
+    expect(gordonTaylorTgC(55, 0, 0.35)).toBeCloseTo(55, 9);
+    const w2 = 0.03 / 0.7;
+    expect(gordonTaylorTgC(50, 0.03, 0.3, 1)).toBeCloseTo((1 - w2) * 50 + w2 * (WATER_TG_K - 273.15), 9);
   });
 
   it('follows the Boyer-Beaman rule, Tg/Tm (K) about 1/2 to 2/3, for dry semi-crystalline entries with an undisputed Tg', () => {

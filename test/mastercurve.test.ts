@@ -24,8 +24,9 @@ import { expectClose } from './expect.js';
 const K = KELVIN_OFFSET;
 const ROUND = 'synthetic round trip: curves generated from known parameters with 1 % seeded noise, fitted back';
 
-// A thermorheologically simple grade (no slow-creep clock): WLF with Tg reference C1 15, C2 60 K.
-const TRUTH: MaterialParams = { ...getFamily('PC').params, creepN: 0, C1: 15, C2_K: 60 };
+// A thermorheologically simple grade (no slow-creep clock): WLF with Tg reference C1 15, C2 60 K, and its
+// transition time at Tg set to 100 s so that the 1 s to 3 h curves at 150 to 170 degC cross the transition.
+const TRUTH: MaterialParams = { ...getFamily('PC').params, creepN: 0, C1: 15, C2_K: 60, tauTg_s: 100 };
 
 function curves(kind: CurveKind, tempsC: readonly number[], seed = 7, points = 50, noise = 0.01): Curve[] {
   const m = compileMaterial(TRUTH);

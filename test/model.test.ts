@@ -75,7 +75,8 @@ describe('the four-region model over every bundled family', () => {
 
 describe('time-temperature superposition', () => {
   it('is exact for an amorphous material without slow creep: E(t, T) = E(t / aT, Tg)', () => {
-    const p = { ...getFamily('PS').params, creepN: 0 };
+    // Without slow creep and without the glassy modulus's own fall with temperature (vertical factor).
+    const p = { ...getFamily('PS').params, creepN: 0, glassySlope_perK: 0 };
     const m = compileMaterial(p);
     const Tg = p.Tg_C + 273.15;
     for (const T of [300, 350, Tg, 380, 400]) {
@@ -179,7 +180,7 @@ describe('inverse answers', () => {
     const pc = compileMaterial(getFamily('PC').params);
     expectClose(apparentTgK(pc, pc.tauTg) ?? NaN, 147 + 273.15, { abs: 1e-9, source: 'definition of Tg at tauTg (model.ts)' });
     expect(apparentTgK(pc, 3.6e6) ?? Infinity).toBeLessThan(147 + 273.15);
-    expect(apparentTgK(pc, 1) ?? 0).toBeGreaterThan(147 + 273.15);
+    expect(apparentTgK(pc, pc.tauTg / 100) ?? 0).toBeGreaterThan(147 + 273.15);
   });
 });
 
@@ -203,4 +204,72 @@ describe('parameter validation names the field', () => {
       expect(() => compileMaterial({ ...base, ...change } as MaterialParams)).toThrow(message);
     });
   }
+});
+
+describe('glassy modulus falling with temperature below Tg (vertical factor)', () => {
+  const DMA =
+    'from memory: DMA storage-modulus slopes of unfilled glassy polymers below Tg, about 0.1 to 0.4 % per K, PMMA steeper (beta process)';
+  it('loses 0.1 to 0.8 % per K between 23 degC and 30 K below Tg at 10 s, for every amorphous family', () => {
+    for (const f of FAMILIES.filter((x) => x.params.kind === 'amorphous')) {
+      const m = compileMaterial(f.params);
+      const hot = f.params.Tg_C - 30 + 273.15;
+      const perK = -Math.log(modulusMPa(m, 10, hot) / modulusMPa(m, 10, T23_K)) / (hot - T23_K);
+      expect(perK, `${f.params.id}: ${DMA}`).toBeGreaterThan(0.001);
+      expect(perK, `${f.params.id}: ${DMA}`).toBeLessThan(0.008);
+    }
+  });
+  it('makes PMMA fall faster than PC and PSU', () => {
+    const slope = (id: string): number => {
+      const m = compileMaterial(getFamily(id).params);
+      return -Math.log(modulusMPa(m, 10, 343.15) / modulusMPa(m, 10, T23_K)) / 50;
+    };
+    expect(slope('PMMA'), DMA).toBeGreaterThan(2 * slope('PC'));
+    expect(slope('PMMA'), DMA).toBeGreaterThan(2 * slope('PSU'));
+  });
+  it('is exp(-s dT) on the glassy modulus alone (closed form of the factor, creep and transition off)', () => {
+    const p = { ...getFamily('PC').params, creepN: 0, tauTg_s: 1e6 };
+    const m = compileMaterial(p);
+    const s = p.glassySlope_perK;
+    // At 1 ms and 60 K below Tg nothing has relaxed (G and F are 1 to 1e-8), so E is the glassy modulus itself.
+    const E = (T: number): number => modulusMPa(m, 1e-3, T);
+    expectClose(E(360) / E(300), Math.exp(-s * 60), {
+      rel: 1e-7,
+      source: 'definition of the vertical factor exp(-s (T - T0)) (Ferry 1980, ch. 11), closed form',
+    });
+  });
+  it('is continuous at Tg and never rises with temperature there', () => {
+    for (const id of ['PC', 'PMMA', 'PA66-dry', 'EP']) {
+      const m = compileMaterial(getFamily(id).params);
+      const Tg = getFamily(id).params.Tg_C + 273.15;
+      for (const t of [1e-3, 10, 3.6e6]) {
+        const below = modulusMPa(m, t, Tg - 1e-7);
+        const above = modulusMPa(m, t, Tg + 1e-7);
+        expectClose(above, below, { rel: 1e-5, source: 'continuity of the model at Tg (identity)' });
+        // A network's plateau rises with T (entropic, model.ts); the thermoplastics must not.
+        if (id !== 'EP') expect(above).toBeLessThanOrEqual(below * (1 + 1e-12));
+      }
+    }
+  });
+});
+
+describe('region labels of semi-crystalline families', () => {
+  const SRC = 'common practice, from memory: the DSC melting endotherm of a moulded grade begins some 20 to 30 K below its peak';
+  it('says crystalline, not melting, 40 K and more below the melting peak (crystals intact)', () => {
+    for (const [id, C] of [
+      ['POM', 100],
+      ['PP', 100],
+      ['PE-HD', 80],
+      ['PA66-dry', 200],
+    ] as const) {
+      const m = compileMaterial(getFamily(id).params);
+      for (const t of [10, 3600, 3.6e6]) expect(evaluateClocks(m, t, C + 273.15).region, `${id} at ${C} degC: ${SRC}`).toBe('crystalline');
+    }
+  });
+  it('says melting within the melting range below the peak', () => {
+    for (const id of ['POM', 'PP', 'PE-HD', 'PA66-dry', 'PEEK']) {
+      const p = getFamily(id).params;
+      const m = compileMaterial(p);
+      expect(evaluateClocks(m, 10, (p.Tm_C ?? 0) - 5 + 273.15).region, `${id}: ${SRC}`).toBe('melting');
+    }
+  });
 });

@@ -22,6 +22,7 @@ import { isPronySpec } from '../material/pronymaterial.js';
 import type { MaterialInput } from '../material/resolve.js';
 import { getFamily } from '../material/families.js';
 import { KELVIN_OFFSET } from '../base/units.js';
+import { longTermChanges, LONG_TERM_S, type LongTermChange } from './longterm.js';
 
 /** An HDT datum: the temperature (K) at which the ISO 75 end point is reached under a flexural stress (MPa). */
 export interface HdtDatum {
@@ -104,17 +105,24 @@ export interface CalibrationResult {
   readonly iterations: number;
   readonly converged: boolean;
   readonly reason: string;
-  /** good: every input within its tolerance; fair: within three tolerances; poor: otherwise or not converged. */
+  /**
+   * good: every input within its tolerance; fair: within three tolerances, or good but with long-term answers
+   * moved more than the inputs justify; poor: otherwise or not converged.
+   */
   readonly quality: CalibrationQuality;
   readonly notes: readonly string[];
+  /** Long-term answers before and after (empty when a long-term modulus was an input or nothing was fitted). */
+  readonly longTerm: readonly LongTermChange[];
 }
 
 /**
  * Order in which parameters are freed for each kind of input. HDT at the highest stress first, then
  * lower stresses, then moduli; each takes the first candidate that moves it and is not taken.
- * Choices (set here, from the model's sensitivities): an amorphous or crosslinked HDT sits just above
- * the point where the glass-transition clock reaches its time scale, so it moves with Tg (when Tg is
- * not given), then with the time scale tauTg at Tg, then with the breadth beta. A semi-crystalline HDT
+ * Choices (set here, from the model's sensitivities): an amorphous or crosslinked HDT is where the
+ * as-moulded bar's clock reaches its time scale, so it moves first with the state of the bar (its excess
+ * fictive temperature at high stress, the TNM nonlinearity x at low stress, which sets the gap between
+ * HDT/A and HDT/B), which no service answer depends on; then with the glassy slope, and only then with
+ * the relaxation spectrum (tauTg, beta) and Tg, which move the long-term answers too. A semi-crystalline HDT
  * at high stress moves with the crystal plateau (crystallinity), at low stress with the melting law;
  * where both HDTs lie in the melting range those two move them alike, and the breadth or time scale of
  * the amorphous phase's transition (beta, tauTg) separates them.
@@ -122,8 +130,8 @@ export interface CalibrationResult {
  */
 export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: NumericField[]; modulus: NumericField[] }> = {
   amorphous: {
-    hdtHigh: ['tauTg_s', 'beta', 'Tg_C', 'creepN'],
-    hdtLow: ['beta', 'tauTg_s', 'Tg_C', 'C1'],
+    hdtHigh: ['fictiveExcess_K', 'glassySlope_perK', 'tauTg_s', 'beta', 'Tg_C', 'creepN'],
+    hdtLow: ['tnmX', 'beta', 'tauTg_s', 'Tg_C', 'C1'],
     modulus: ['creepN', 'creepEa_kJmol', 'beta', 'plateau_MPa'],
   },
   semicrystalline: {
@@ -132,8 +140,8 @@ export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: Nu
     modulus: ['creepN', 'creepEa_kJmol', 'crystallinity', 'beta'],
   },
   crosslinked: {
-    hdtHigh: ['tauTg_s', 'beta', 'Tg_C', 'creepN'],
-    hdtLow: ['beta', 'tauTg_s', 'Tg_C'],
+    hdtHigh: ['fictiveExcess_K', 'glassySlope_perK', 'tauTg_s', 'beta', 'Tg_C', 'creepN'],
+    hdtLow: ['tnmX', 'beta', 'tauTg_s', 'Tg_C'],
     modulus: ['creepN', 'creepEa_kJmol', 'Mc_kgmol', 'beta'],
   },
 };
@@ -151,6 +159,9 @@ function boundsOf(field: NumericField, p: MaterialParams): { min: number; max: n
       return { min: spec.min, max: Math.min(spec.max, p.crystalContinuity), log: false };
     case 'creepN':
     case 'beta':
+    case 'tnmX':
+    case 'fictiveExcess_K':
+    case 'glassySlope_perK':
     case 'flowBeta':
     case 'crystalContinuity':
       return { min: spec.min, max: spec.max, log: false };
@@ -393,6 +404,26 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   let quality: CalibrationQuality = worst <= 1 ? 'good' : worst <= 3 ? 'fair' : 'poor';
   if (!converged && quality !== 'good') quality = 'poor';
   if (!converged) notes.push(`the least-squares fit did not converge (${reason}); the record is the best point found`);
+  const defaults = familyDefaults(p0);
+  for (const f of freeResults) {
+    const d = defaults?.[f.field];
+    if (typeof d === 'number') notes.push(`${f.field}: family ${defaults?.id} default ${fmt(d)}, calibrated ${fmt(f.value)}`);
+  }
+  // Long-term answers the inputs do not inform (no creep or relaxation datum at 100 h or more) must not move far.
+  const informed = (inputs.moduli ?? []).some((d) => d.timeS >= LONG_TERM_S / 10);
+  const longTerm = informed || freeResults.length === 0 ? [] : longTermChanges(base, fitted);
+  const moved = longTerm.filter((c) => c.tooFar);
+  if (moved.length > 0) {
+    if (quality === 'good') quality = 'fair';
+    notes.push(
+      `the inputs do not inform the long term, but the calibration moved it: ${moved
+        .map(
+          (c) =>
+            `${c.answer} ${fmt(c.before)} -> ${fmt(c.after)} ${c.unit} (${c.unit === 'MPa' ? `${fmt(c.unjustified * 100)} %` : `${fmt(c.unjustified)} K`} beyond what the inputs justify)`,
+        )
+        .join('; ')}; give a creep modulus, or fit other parameters`,
+    );
+  }
   if (quality === 'poor' && fits.some((f) => f.label.startsWith('HDT') && !residuals.find((x) => x.input === f.label)?.within)) {
     notes.push(
       'an HDT is a threshold crossing: where the modulus runs close to the end-point modulus over a range of temperature, the simulated HDT jumps between regimes and some datasheet pairs cannot be met together; calibrate to fewer inputs, or choose other parameters to fit',
@@ -407,7 +438,21 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
     reason,
     quality,
     notes,
+    longTerm,
   };
+}
+
+/** The bundled family a record comes from (its id, or its id before '-cal'), or null. */
+function familyDefaults(p: MaterialParams): MaterialParams | null {
+  for (const id of [p.id, p.id.replace(/-cal$/i, '')]) {
+    try {
+      const f = getFamily(id).params;
+      if (f.kind === p.kind) return f;
+    } catch {
+      // not a bundled family
+    }
+  }
+  return null;
 }
 
 interface Chosen {

@@ -61,9 +61,13 @@ export function storageModulusMPa(m: Material, frequencyHz: number, TK: number):
   return modulusMPa(m, t, TK) * storageFactor(localSlope(m, t, TK));
 }
 
-/** Parameters the DMA fit may free, in order of preference, per kind (set here). */
+/**
+ * Parameters the DMA fit may free, in order of preference, per kind (set here). With the mechanical alpha
+ * time near 1 s at Tg, a 1 Hz sweep crosses the transition within a few kelvin of Tg, where the WLF
+ * slope C1 / C2 shapes the step: C2 is freed after the breadth.
+ */
 export const DMA_CANDIDATES: Record<MaterialParams['kind'], NumericField[]> = {
-  amorphous: ['E23_MPa', 'Tg_C', 'beta', 'plateau_MPa', 'flowDecades'],
+  amorphous: ['E23_MPa', 'Tg_C', 'beta', 'C2_K', 'plateau_MPa', 'flowDecades'],
   semicrystalline: ['E23_MPa', 'Tg_C', 'crystallinity', 'meltSharpness', 'Tm_C', 'beta'],
   crosslinked: ['E23_MPa', 'Tg_C', 'beta', 'Mc_kgmol'],
 };

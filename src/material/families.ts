@@ -6,6 +6,8 @@
 import { UnknownFamilyError } from '../base/errors.js';
 import type { Kind, MaterialParams, NumericField } from './params.js';
 import { WLF_UNIVERSAL_C1, WLF_UNIVERSAL_C2_K } from './shift.js';
+import { compileMaterial, DATASHEET_TIME_S, GLASS_SLOPE_SPAN_K, modulusMPa, T23_K } from './model.js';
+import { KELVIN_OFFSET } from '../base/units.js';
 
 export const SRC = {
   handbookTg:
@@ -22,16 +24,31 @@ export const SRC = {
     'set here: gives a 1000 h / 10 s modulus ratio typical of the family at 23 degC (from memory: about 0.8 to 0.9 for glassy, 0.4 to 0.6 for soft semi-crystalline grades)',
   creepEa: 'from memory: secondary relaxations 30 to 100 kJ/mol (Starkweather, Macromolecules 14 (1981) 1277)',
   crystallinity: 'from memory: typical crystallinity of moulded parts',
+  creepNCheck: 'set here: meets the 1000 h creep modulus at 23 degC the family carries (checks.ts)',
+  crystallinityHdt:
+    'set here within the 25 to 40 % typical of moulded parts (from memory), with meltSharpness, to meet the HDT check values',
   continuity: 'set here: crystals carry load in parallel (Takayanagi phi = 1), so the crystal plateau survives flow of the amorphous phase',
   melt: 'set here so that the simulated ISO 75 HDT/A and HDT/B (1.80 / 0.45 MPa) come near typical unfilled-grade values (from memory)',
   creepEaCrystal:
     'literature: alpha relaxations of semi-crystalline polyethylene, about 110 and 190 kJ/mol; the lower value is used here for the soft semi-crystalline families (set here)',
-  moisture:
-    'from memory: conditioning at 23 degC / 50 % RH lowers the Tg of PA6 and PA66 by about 40 to 60 K and their 23 degC modulus by a factor of 2 to 3',
   network: 'from memory: typical network density of the family; E = 3 rho R T / Mc (Flory 1953; Treloar 1975)',
   glassyModulus: 'common practice: glassy modulus of organic polymers, 1 to 4 GPa (Tobolsky 1960, from memory)',
   ferryPS: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: polystyrene (from memory)',
   ferryNR: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: natural rubber (from memory)',
+  glassySlope: 'from memory: DMA storage-modulus slope below Tg, 0.1 to 0.4 % per K (vertical factor: Ferry 1980, ch. 11)',
+  glassySlopePMMA: 'from memory: PMMA falls faster, about 0.6 % per K, from its beta relaxation near room temperature',
+  glassySlopeHighTg: 'from memory: high-Tg aromatic polymers keep their modulus best, 0.1 to 0.15 % per K in DMA',
+  fictive: 'set here: no as-moulded state for this kind (x = 1)',
+  fictiveExcess:
+    'set here: as-moulded bar above the DSC Tg, tuned to the typical HDT values the family carries (quenched glasses 5 to 20 K: Moynihan et al. 1976, from memory)',
+  tnmX: 'from memory: TNM x of polymer glasses 0.2 to 0.5 (Hodge, J. Non-Cryst. Solids 169 (1994) 211)',
+  tauMech: 'from memory: the 1 Hz loss peak (ISO 6721-11) lies 0 to 5 K above the DSC Tg (ISO 11357-2), a mechanical time near 1 s at Tg',
+  eaGlassEq:
+    'set here: between aged-glass creep (100 to 300 kJ/mol, from memory) and the WLF slope at Tg (about 1100 kJ/mol for PC), so that with the 1 s time the 1000 h apparent Tg stays 20 to 30 K below Tg (common practice)',
+  gordonTaylor:
+    'Gordon-Taylor, J. Appl. Chem. 2 (1952) 493, with water (Tg 136 K) in the amorphous phase only; the water content at 23 degC / 50 % RH is a typical datasheet value (from memory)',
+  sharedModuli:
+    "derived: the dry grade's glassy and crystal moduli at the conditioned Tg (water plasticizes only the amorphous phase); the datasheet conditioned modulus is a check value",
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
 } as const;
 
@@ -56,12 +73,30 @@ interface Entry {
   Eg?: number;
   set?: Partial<MaterialParams>;
   src?: SourceMap;
+  /**
+   * A moisture-conditioned grade: the dry family it shares its glassy and crystal moduli with, and its
+   * water content (mass fraction of the whole part); Tg then follows from Gordon-Taylor, everything else
+   * is the dry grade's, and Tg and E23 above are the handbook and datasheet values it is checked against.
+   */
+  conditioned?: { from: string; water: number };
 }
 
 const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: SourceMap }> = {
   amorphous: {
-    values: { Ea_kJmol: 600, beta: 0.4, plateau_MPa: 2, flowDecades: 4, flowBeta: 0.6, creepN: 0.012, creepEa_kJmol: 60 },
-    sources: {},
+    values: {
+      beta: 0.4,
+      plateau_MPa: 2,
+      flowDecades: 4,
+      flowBeta: 0.6,
+      creepN: 0.012,
+      creepEa_kJmol: 60,
+      glassySlope_perK: 0.002,
+      tauTg_s: 1,
+      Ea_kJmol: 900,
+      tnmX: 0.35,
+      fictiveExcess_K: 5,
+    },
+    sources: { tauTg_s: SRC.tauMech, Ea_kJmol: SRC.eaGlassEq, tnmX: SRC.tnmX, fictiveExcess_K: SRC.fictiveExcess },
   },
   semicrystalline: {
     values: {
@@ -74,12 +109,22 @@ const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: So
       creepEa_kJmol: 60,
       crystalContinuity: 1,
       meltSharpness: 8,
+      glassySlope_perK: 0.002,
     },
     sources: {},
   },
   crosslinked: {
-    values: { Ea_kJmol: 600, beta: 0.3, creepN: 0.008, creepEa_kJmol: 60 },
-    sources: {},
+    values: {
+      beta: 0.3,
+      creepN: 0.008,
+      creepEa_kJmol: 60,
+      glassySlope_perK: 0.002,
+      tauTg_s: 1,
+      Ea_kJmol: 900,
+      tnmX: 0.35,
+      fictiveExcess_K: 5,
+    },
+    sources: { tauTg_s: SRC.tauMech, Ea_kJmol: SRC.eaGlassEq, tnmX: SRC.tnmX, fictiveExcess_K: SRC.fictiveExcess },
   },
 };
 
@@ -101,8 +146,8 @@ const ENTRIES: Entry[] = [
     Tg: [-100, -120, -80],
     Tm: [110, 105, 115],
     E23: [200, 150, 300],
-    set: { crystallinity: 0.45, meltSharpness: 6, creepN: 0.08, creepEa_kJmol: 110 },
-    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+    set: { crystallinity: 0.45, meltSharpness: 6, creepN: 0.055, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal, creepN: SRC.creepNCheck },
   },
   {
     id: 'PP',
@@ -111,8 +156,8 @@ const ENTRIES: Entry[] = [
     Tg: [-10, -20, 0],
     Tm: [164, 160, 168],
     E23: [1500, 1300, 1800],
-    set: { crystallinity: 0.5, meltSharpness: 6, creepN: 0.06, creepEa_kJmol: 110 },
-    src: { creepEa_kJmol: SRC.creepEaCrystal },
+    set: { crystallinity: 0.5, meltSharpness: 4, creepN: 0.085, creepEa_kJmol: 110 },
+    src: { creepEa_kJmol: SRC.creepEaCrystal, creepN: SRC.creepNCheck },
   },
   {
     id: 'PS',
@@ -120,12 +165,34 @@ const ENTRIES: Entry[] = [
     kind: 'amorphous',
     Tg: [100, 95, 105],
     E23: [3200, 3000, 3400],
-    set: { C1: 13.7, C2_K: 50 },
+    set: { C1: 13.7, C2_K: 50, glassySlope_perK: 0.003 },
     src: { C1: SRC.ferryPS, C2_K: SRC.ferryPS },
   },
-  { id: 'PMMA', name: 'poly(methyl methacrylate)', kind: 'amorphous', Tg: [110, 100, 120], E23: [3100, 2700, 3300] },
-  { id: 'PC', name: 'polycarbonate (bisphenol A)', kind: 'amorphous', Tg: [147, 145, 150], E23: [2350, 2200, 2500] },
-  { id: 'PVC-U', name: 'poly(vinyl chloride), unplasticized', kind: 'amorphous', Tg: [80, 75, 85], E23: [3000, 2700, 3300] },
+  {
+    id: 'PMMA',
+    name: 'poly(methyl methacrylate)',
+    kind: 'amorphous',
+    Tg: [110, 100, 120],
+    E23: [3100, 2700, 3300],
+    set: { glassySlope_perK: 0.006, creepN: 0.026 },
+    src: { glassySlope_perK: SRC.glassySlopePMMA, creepN: SRC.creepNCheck },
+  },
+  {
+    id: 'PC',
+    name: 'polycarbonate (bisphenol A)',
+    kind: 'amorphous',
+    Tg: [147, 145, 150],
+    E23: [2350, 2200, 2500],
+    set: { glassySlope_perK: 0.0015 },
+  },
+  {
+    id: 'PVC-U',
+    name: 'poly(vinyl chloride), unplasticized',
+    kind: 'amorphous',
+    Tg: [80, 75, 85],
+    E23: [3000, 2700, 3300],
+    set: { glassySlope_perK: 0.004 },
+  },
   {
     id: 'ABS',
     name: 'acrylonitrile-butadiene-styrene',
@@ -133,10 +200,35 @@ const ENTRIES: Entry[] = [
     Tg: [105, 100, 110],
     E23: [2300, 2000, 2600],
     note: 'Tg of the SAN phase',
+    set: { glassySlope_perK: 0.004 },
   },
-  { id: 'PSU', name: 'polysulfone', kind: 'amorphous', Tg: [187, 185, 190], E23: [2500, 2400, 2700] },
-  { id: 'PESU', name: 'polyethersulfone', kind: 'amorphous', Tg: [222, 220, 225], E23: [2700, 2600, 2900] },
-  { id: 'PEI', name: 'polyetherimide', kind: 'amorphous', Tg: [216, 215, 217], E23: [3200, 3000, 3400] },
+  {
+    id: 'PSU',
+    name: 'polysulfone',
+    kind: 'amorphous',
+    Tg: [187, 185, 190],
+    E23: [2500, 2400, 2700],
+    set: { fictiveExcess_K: 0, glassySlope_perK: 0.0015 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
+  },
+  {
+    id: 'PESU',
+    name: 'polyethersulfone',
+    kind: 'amorphous',
+    Tg: [222, 220, 225],
+    E23: [2700, 2600, 2900],
+    set: { fictiveExcess_K: 0, glassySlope_perK: 0.0012 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
+  },
+  {
+    id: 'PEI',
+    name: 'polyetherimide',
+    kind: 'amorphous',
+    Tg: [216, 215, 217],
+    E23: [3200, 3000, 3400],
+    set: { fictiveExcess_K: 0, glassySlope_perK: 0.0012 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
+  },
   {
     id: 'PA6-dry',
     name: 'polyamide 6, dry as moulded',
@@ -144,7 +236,8 @@ const ENTRIES: Entry[] = [
     Tg: [55, 50, 60],
     Tm: [222, 220, 225],
     E23: [3000, 2600, 3300],
-    set: { crystallinity: 0.35 },
+    set: { crystallinity: 0.3, meltSharpness: 12 },
+    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt },
   },
   {
     id: 'PA6-cond',
@@ -153,8 +246,8 @@ const ENTRIES: Entry[] = [
     Tg: [10, 0, 20],
     Tm: [222, 220, 225],
     E23: [1100, 900, 1400],
-    set: { crystallinity: 0.35 },
-    src: { Tg_C: SRC.moisture, E23_MPa: SRC.moisture },
+    src: { Tg_C: SRC.gordonTaylor, E23_MPa: SRC.sharedModuli },
+    conditioned: { from: 'PA6-dry', water: 0.026 },
   },
   {
     id: 'PA66-dry',
@@ -163,7 +256,8 @@ const ENTRIES: Entry[] = [
     Tg: [60, 50, 70],
     Tm: [260, 255, 265],
     E23: [3100, 2800, 3500],
-    set: { crystallinity: 0.4, meltSharpness: 7 },
+    set: { crystallinity: 0.3, meltSharpness: 16 },
+    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt },
   },
   {
     id: 'PA66-cond',
@@ -172,8 +266,8 @@ const ENTRIES: Entry[] = [
     Tg: [20, 10, 30],
     Tm: [260, 255, 265],
     E23: [1500, 1200, 1800],
-    set: { crystallinity: 0.4, meltSharpness: 7 },
-    src: { Tg_C: SRC.moisture, E23_MPa: SRC.moisture },
+    src: { Tg_C: SRC.gordonTaylor, E23_MPa: SRC.sharedModuli },
+    conditioned: { from: 'PA66-dry', water: 0.027 },
   },
   {
     id: 'POM',
@@ -182,8 +276,8 @@ const ENTRIES: Entry[] = [
     Tg: [-70, -80, -60],
     Tm: [165, 162, 168],
     E23: [2800, 2600, 3000],
-    set: { crystallinity: 0.6, creepEa_kJmol: 110 },
-    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+    set: { crystallinity: 0.6, creepN: 0.06, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal, creepN: SRC.creepNCheck },
   },
   {
     id: 'POM-H',
@@ -192,8 +286,8 @@ const ENTRIES: Entry[] = [
     Tg: [-70, -80, -60],
     Tm: [176, 175, 178],
     E23: [3000, 2800, 3200],
-    set: { crystallinity: 0.65, creepEa_kJmol: 110 },
-    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal },
+    set: { crystallinity: 0.65, creepN: 0.055, creepEa_kJmol: 110 },
+    src: { Tg_C: SRC.disputedTg, creepEa_kJmol: SRC.creepEaCrystal, creepN: SRC.creepNCheck },
   },
   {
     id: 'PET',
@@ -211,7 +305,8 @@ const ENTRIES: Entry[] = [
     Tg: [50, 40, 60],
     Tm: [223, 220, 225],
     E23: [2500, 2300, 2700],
-    set: { crystallinity: 0.35 },
+    set: { crystallinity: 0.3, meltSharpness: 12 },
+    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt },
   },
   {
     id: 'PPS',
@@ -229,7 +324,8 @@ const ENTRIES: Entry[] = [
     Tg: [143, 143, 145],
     Tm: [340, 335, 343],
     E23: [3700, 3500, 4000],
-    set: { crystallinity: 0.35 },
+    set: { crystallinity: 0.35, glassySlope_perK: 0.0012 },
+    src: { glassySlope_perK: SRC.glassySlopeHighTg },
   },
   {
     id: 'PTFE',
@@ -313,6 +409,9 @@ const BASE_SOURCES: SourceMap = {
   crystallinity: SRC.crystallinity,
   crystalContinuity: SRC.continuity,
   meltSharpness: SRC.melt,
+  glassySlope_perK: SRC.glassySlope,
+  fictiveExcess_K: SRC.fictive,
+  tnmX: SRC.fictive,
 };
 
 /** A record with every field empty (null) or at its neutral default; the base of every family. */
@@ -341,6 +440,9 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
     creepEa_kJmol: 60,
     density_kgm3: 1000,
     Mc_kgmol: 1,
+    glassySlope_perK: 0,
+    fictiveExcess_K: 0,
+    tnmX: 1,
     Tg_low_C: null,
     Tg_high_C: null,
     Tm_low_C: null,
@@ -350,7 +452,57 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
   };
 }
 
-function toFamily(e: Entry): Family {
+/** Tg of amorphous water, K (Johari, Hallbrucker and Mayer, Nature 330 (1987) 552; from memory). */
+export const WATER_TG_K = 136;
+/**
+ * Gordon-Taylor constant of water in an aliphatic polyamide (set here: with 2.6 to 2.8 % water at 23 degC /
+ * 50 % RH it puts PA6 and PA66 15 to 20 degC, inside the handbook conditioned ranges, and their 23 degC
+ * moduli within 20 % of the conditioned datasheet values; water plasticizes far more strongly than its Tg
+ * alone suggests, from memory).
+ */
+export const GORDON_TAYLOR_K_WATER = 6.8;
+
+/**
+ * Tg (degC) of a polymer plasticized by water: Gordon-Taylor, Tg = (w1 Tg1 + k w2 Tg2) / (w1 + k w2), with
+ * the water mass fraction w2 taken in the amorphous phase (crystals take up none).
+ */
+export function gordonTaylorTgC(dryTgC: number, waterFraction: number, crystallinity: number, k = GORDON_TAYLOR_K_WATER): number {
+  const w2 = waterFraction / (1 - crystallinity);
+  const w1 = 1 - w2;
+  return (w1 * (dryTgC + KELVIN_OFFSET) + k * w2 * WATER_TG_K) / (w1 + k * w2) - KELVIN_OFFSET;
+}
+
+/** The conditioned record: the dry grade with the Gordon-Taylor Tg and the same glassy and crystal moduli. */
+function conditionedFrom(dry: MaterialParams, p: MaterialParams, water: number): void {
+  // Rounded to 0.1 K, the precision a Tg is quoted to.
+  const dTg = Math.round((gordonTaylorTgC(dry.Tg_C, water, dry.crystallinity) - dry.Tg_C) * 10) / 10;
+  const m = compileMaterial(dry);
+  // The glassy modulus at 23 degC (extrapolated along the slope), shared with the dry grade.
+  const Eg23 = m.EgMPa / Math.exp(dry.glassySlope_perK * GLASS_SLOPE_SPAN_K);
+  const Tg_C = dry.Tg_C + dTg;
+  const wet = compileMaterial({
+    ...dry,
+    Tg_C,
+    Tg_low_C: null,
+    Tg_high_C: null,
+    E23_MPa: null,
+    E23_low_MPa: null,
+    E23_high_MPa: null,
+    Eg_MPa: Eg23,
+  });
+  const E23 = modulusMPa(wet, DATASHEET_TIME_S, T23_K);
+  const scale = E23 / (dry.E23_MPa ?? E23);
+  Object.assign(p, {
+    Tg_C,
+    Tg_low_C: dry.Tg_low_C === null ? null : dry.Tg_low_C + dTg,
+    Tg_high_C: dry.Tg_high_C === null ? null : dry.Tg_high_C + dTg,
+    E23_MPa: E23,
+    E23_low_MPa: dry.E23_low_MPa === null ? null : dry.E23_low_MPa * scale,
+    E23_high_MPa: dry.E23_high_MPa === null ? null : dry.E23_high_MPa * scale,
+  });
+}
+
+function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
   const d = KIND_DEFAULTS[e.kind];
   const p: MaterialParams = { ...blankParams(e.id, e.kind), ...d.values, name: e.name };
   [p.Tg_C, p.Tg_low_C, p.Tg_high_C] = e.Tg;
@@ -358,6 +510,13 @@ function toFamily(e: Entry): Family {
   if (e.E23) [p.E23_MPa, p.E23_low_MPa, p.E23_high_MPa] = e.E23;
   if (e.Eg !== undefined) p.Eg_MPa = e.Eg;
   Object.assign(p, e.set);
+  if (e.conditioned) {
+    // Everything but Tg (and the 23 degC modulus that follows from it) is the dry grade's.
+    const dry = built.get(e.conditioned.from);
+    if (!dry) throw new Error(`family ${e.id}: the dry grade ${e.conditioned.from} must come first`);
+    Object.assign(p, dry.params, { id: e.id, name: e.name });
+    conditionedFrom(dry.params, p, e.conditioned.water);
+  }
   const sources: SourceMap = { ...BASE_SOURCES, ...d.sources, ...e.src };
   for (const key of Object.keys(sources) as NumericField[]) {
     if (p[key] === null || !isUsed(key, e.kind)) delete sources[key];
@@ -384,7 +543,14 @@ function isUsed(key: NumericField, kind: Kind): boolean {
 }
 
 /** All bundled families, in table order. */
-export const FAMILIES: readonly Family[] = ENTRIES.map(toFamily);
+export const FAMILIES: readonly Family[] = ((): Family[] => {
+  const built = new Map<string, Family>();
+  return ENTRIES.map((e) => {
+    const f = toFamily(e, built);
+    built.set(e.id, f);
+    return f;
+  });
+})();
 
 const BY_ID = new Map(FAMILIES.map((f) => [f.params.id.toLowerCase(), f]));
 

@@ -38,6 +38,19 @@ export const MELT_REMAINING_AT_TM = 0.05;
 const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
 /** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
 export const MELT_TAIL_K = 2;
+/**
+ * Melting onset below the DSC peak, K: the region is "melting" only from Tm - MELT_ONSET_K up; below it the
+ * crystals are intact and what relaxes is the amorphous phase or the crystal alpha_c process ("crystalline").
+ * Common practice, from memory: the melting endotherm of a moulded grade begins some 20 to 30 K below its peak.
+ */
+export const MELT_ONSET_K = 25;
+
+/**
+ * Kelvin below 23 degC at which the glassy modulus stops rising on cooling (set here: the fall with
+ * temperature is read from DMA slopes between about -50 degC and Tg; further down the secondary relaxations
+ * freeze and the curve flattens, so the factor is held there and the modulus stays bounded).
+ */
+export const GLASS_SLOPE_SPAN_K = 100;
 
 /**
  * Modulus below which a material has relaxed to nothing (a melt), MPa. Set here: 1 kPa, a hundredth of
@@ -55,7 +68,12 @@ export interface Material {
   readonly params: MaterialParams;
   readonly kind: Kind;
   readonly shift: ShiftConstants;
+  /** Glassy modulus at the cold end of the slope (the upper bound of E), MPa. */
   readonly EgMPa: number;
+  /** Fractional fall of the glassy and crystal moduli per kelvin (vertical factor; absent on a Prony material). */
+  readonly glassSlope?: number;
+  /** Temperature below which the vertical factor is held, K. */
+  readonly glassLowK?: number;
   readonly tauTg: number;
   readonly beta: number;
   readonly tauFlow: number;
@@ -105,13 +123,21 @@ export function compileMaterial(params: MaterialParams): Material {
   return material;
 }
 
-function build(p: MaterialParams, EgMPa: number): Material {
+/**
+ * The material with its glassy modulus given at 23 degC (MPa; extrapolated along the slope where Tg is
+ * lower); the stored EgMPa is the value at the cold end of the slope, GLASS_SLOPE_SPAN_K lower. Materials
+ * that differ only in Tg (dry and conditioned polyamides) thus share the glassy and crystal moduli.
+ */
+function build(p: MaterialParams, EgRefMPa: number): Material {
   const TgK = p.Tg_C + KELVIN_OFFSET;
+  const glassLowK = T23_K - GLASS_SLOPE_SPAN_K;
   return {
     params: p,
     kind: p.kind,
     shift: { law: p.shiftLaw, TrefK: TgK, C1: p.C1, C2K: p.C2_K, EakJ: p.Ea_kJmol },
-    EgMPa,
+    EgMPa: EgRefMPa * Math.exp(p.glassySlope_perK * GLASS_SLOPE_SPAN_K),
+    glassSlope: p.glassySlope_perK,
+    glassLowK,
     tauTg: p.tauTg_s,
     beta: p.beta,
     tauFlow: p.tauTg_s * 10 ** p.flowDecades,
@@ -133,14 +159,30 @@ function build(p: MaterialParams, EgMPa: number): Material {
 
 function checkGlassy(m: Material): Material {
   const rubber = Math.max(m.plateau, m.networkMPaPerK * T23_K);
-  if (m.EgMPa < 10 * rubber) {
+  const EgAtTg = m.EgMPa * verticalFactor(m, m.shift.TrefK, m.shift.TrefK);
+  if (EgAtTg < 10 * rubber) {
     throw new ParameterError(
       'Eg_MPa',
-      `${m.EgMPa} MPa must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa)`,
-      m.EgMPa,
+      `${Number(EgAtTg.toPrecision(4))} MPa (glassy modulus at Tg) must be at least ten times the rubbery modulus (${rubber.toPrecision(3)} MPa)`,
+      m.params.Eg_MPa ?? m.params.E23_MPa ?? m.EgMPa,
     );
   }
   return m;
+}
+
+/**
+ * Vertical factor of the glassy (or crystal) modulus at T (K), 1 at the cold end and falling by the
+ * slope per kelvin up to topK (Tg for the glass, Tm for crystals), constant above: a temperature-dependent
+ * modulus scale in the sense of Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, ch. 11.
+ */
+export function verticalFactor(m: Material, TK: number, topK: number): number {
+  const s = m.glassSlope ?? 0;
+  if (s === 0) return 1;
+  const low = m.glassLowK ?? 0;
+  // A Tg below the cold end holds the factor at 1 (never above it, so E stays bounded by EgMPa).
+  const top = topK > low ? topK : low;
+  const Tc = TK < low ? low : TK > top ? top : TK;
+  return Math.exp(-s * (Tc - low));
 }
 
 /** Solves the glassy modulus so that E(23 degC, datasheet time) equals E23 (MPa). */
@@ -221,9 +263,11 @@ interface Parts {
   glassy: number;
   rubbery: number;
   lambda: number;
+  /** At or above the melting onset (semi-crystalline). */
+  melting: boolean;
 }
 
-const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0 };
+const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, lambda: 0, melting: false };
 
 /**
  * Modulus (MPa) of a four-region material from its clocks, writing the contributions into p. lnX = ln(xi / tauTg)
@@ -234,9 +278,10 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   const g = m.creepN === 0 ? 1 : Math.exp(-m.creepN * Math.log1p(theta));
   p.G = G;
   p.g = g;
+  const Eg = m.EgMPa * verticalFactor(m, TK, m.shift.TrefK);
   if (m.kind === 'crosslinked') {
     const Er = m.networkMPaPerK * TK;
-    p.glassy = g * Math.max(0, m.EgMPa - Er) * G;
+    p.glassy = g * Math.max(0, Eg - Er) * G;
     p.rubbery = Er;
     p.F = 1;
     p.remaining = 0;
@@ -244,7 +289,7 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
     return p.glassy + Er;
   }
   const F = Math.exp(-Math.exp(m.flowBeta * (lnX - m.lnFlowRatio)));
-  const glassy = g * (m.EgMPa - m.plateau) * G;
+  const glassy = g * Math.max(0, Eg - m.plateau) * G;
   const rubbery = g * m.plateau * F;
   const Ea = glassy + rubbery;
   p.F = F;
@@ -258,11 +303,12 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
   const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
   const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
-  const Ec = g * m.EgMPa;
+  const Ec = g * m.EgMPa * verticalFactor(m, TK, m.TmK);
   const lambda = (m.crystallinity * remaining) / m.phi;
   const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
   p.remaining = remaining;
   p.lambda = lambda;
+  p.melting = TK >= m.TmK - MELT_ONSET_K;
   return lambda * series + (1 - lambda) * Ea;
 }
 
@@ -270,19 +316,11 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
 function regionOf(m: Material, E: number, p: Parts): Region {
   if (m.kind === 'crosslinked') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : 'rubbery';
   if (m.kind === 'amorphous') return p.G >= 0.9 ? 'glassy' : p.glassy > p.rubbery ? 'transition' : p.F >= 0.5 ? 'rubbery' : 'flow';
-  // Semi-crystalline: the amorphous phase is in transition while its glassy part carries at least a
-  // tenth of the stiffness; the crystals then hold a plateau until the melting law takes over.
-  return p.remaining < 0.5 && p.remaining >= 0.01
-    ? 'melting'
-    : p.G >= 0.9
-      ? 'glassy'
-      : (1 - p.lambda) * p.glassy >= 0.1 * E
-        ? 'transition'
-        : p.remaining >= 0.5
-          ? 'crystalline'
-          : p.F >= 0.5
-            ? 'rubbery'
-            : 'flow';
+  // Semi-crystalline: from the melting onset up, melting while crystals remain, then the melt. Below it the
+  // amorphous phase is glassy, or in transition while its glassy part carries at least a tenth of the
+  // stiffness; otherwise the intact crystals carry the part (crystalline).
+  if (p.melting) return p.remaining >= 0.01 ? 'melting' : p.F >= 0.5 ? 'rubbery' : 'flow';
+  return p.G >= 0.9 ? 'glassy' : (1 - p.lambda) * p.glassy >= 0.1 * E ? 'transition' : 'crystalline';
 }
 
 /**

@@ -33,6 +33,9 @@ export interface MaterialParams {
   creepEa_kJmol: number;
   density_kgm3: number;
   Mc_kgmol: number;
+  glassySlope_perK: number;
+  fictiveExcess_K: number;
+  tnmX: number;
   Tg_low_C: number | null;
   Tg_high_C: number | null;
   Tm_low_C: number | null;
@@ -54,6 +57,11 @@ export interface FieldSpec {
   readonly optional: boolean;
   readonly kinds: readonly Kind[];
   readonly description: string;
+  /**
+   * Value given to the field when a typed record leaves it empty: the value that reproduces the model
+   * before the field existed, so that parameter blocks written earlier keep their answers.
+   */
+  readonly neutral?: number;
 }
 
 const ALL = KINDS;
@@ -202,6 +210,36 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     description: 'density, for the network modulus 3 rho R T / Mc',
   },
   { key: 'Mc_kgmol', unit: 'kg/mol', min: 0.05, max: 100, optional: false, kinds: XL, description: 'molar mass between crosslinks' },
+  {
+    key: 'glassySlope_perK',
+    unit: '1/K',
+    min: 0,
+    max: 0.01,
+    optional: false,
+    kinds: ALL,
+    neutral: 0,
+    description: 'fall of the glassy and crystal moduli per kelvin (DMA slope)',
+  },
+  {
+    key: 'fictiveExcess_K',
+    unit: 'K',
+    min: -20,
+    max: 60,
+    optional: false,
+    kinds: ALL,
+    neutral: 0,
+    description: 'fictive temperature of the HDT bar above Tg (below: aged); HDT only',
+  },
+  {
+    key: 'tnmX',
+    unit: '-',
+    min: 0.1,
+    max: 1,
+    optional: false,
+    kinds: ALL,
+    neutral: 1,
+    description: 'TNM nonlinearity x of the HDT bar (1 = no memory of its fictive temperature)',
+  },
   { key: 'Tg_low_C', unit: 'degC', min: -150, max: 400, optional: true, kinds: ALL, description: 'low end of the Tg range, for the band' },
   {
     key: 'Tg_high_C',

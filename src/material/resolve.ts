@@ -46,7 +46,7 @@ export function paramsFromRecord(record: Readonly<Record<string, unknown>>): Mat
   for (const f of NUMERIC_FIELDS) {
     const v = record[f.key];
     if (v === undefined || v === null || v === '') {
-      out[f.key] = null;
+      out[f.key] = f.neutral ?? null;
       continue;
     }
     const n = typeof v === 'number' ? v : typeof v === 'string' && v.trim() !== '' ? Number(v.trim()) : NaN;

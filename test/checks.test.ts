@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { compileMaterial, creepModulusMPa, DATASHEET_TIME_S, FAMILIES, getFamily, modulusMPa, simulateHdt, T23_K } from '../src/index.js';
+import { CHECK_HDT_K, CHECK_MODULUS_REL, FAMILY_CHECKS } from '../src/material/checks.js';
+
+/**
+ * Every bundled family against the typical values it carries (src/material/checks.ts; each "common practice,
+ * from memory" as stated there): HDT within 8 K, moduli within 20 %. KNOWN_GAPS lists the checks the model does
+ * not meet yet, with the structural reason; the test fails if one of them starts to pass (so the list stays true)
+ * or if any other check fails.
+ */
+const KNOWN_GAPS: Record<string, string> = {
+  'PP E80': 'the slow-creep clock that gives the 1000 h creep modulus also softens the 10 s modulus at 80 degC',
+  'POM E80': 'as PP: one slow-creep process for both the long term at 23 degC and the short term at 80 degC',
+  'POM HDT/B': 'the melting law lowers the crystal plateau from 23 degC on; HDT/B needs crystals intact to some 10 K below Tm',
+  'POM-H HDT/B': 'as POM',
+  'PBT E80': 'the crystal plateau above Tg is too low at the crystallinity that meets HDT/A',
+  'PPS HDT/A': 'the crystal plateau above Tg is too stiff for the 1.80 MPa end point',
+  'PTFE HDT/B': 'as POM: the melting law takes the crystals too early',
+};
+
+type Row = { key: string; simulated: number; typical: number; ok: boolean; source: string };
+
+function rows(): Row[] {
+  const out: Row[] = [];
+  for (const c of FAMILY_CHECKS) {
+    const m = compileMaterial(getFamily(c.id).params);
+    const hdt = (label: string, stress: number, typical: number | null): void => {
+      if (typical === null) return;
+      const sim = simulateHdt(m, stress).temperatureC ?? Infinity;
+      out.push({ key: `${c.id} ${label}`, simulated: sim, typical, ok: Math.abs(sim - typical) <= CHECK_HDT_K, source: c.source });
+    };
+    const modulus = (label: string, sim: number, typical: number): void => {
+      out.push({
+        key: `${c.id} ${label}`,
+        simulated: sim,
+        typical,
+        ok: Math.abs(sim / typical - 1) <= CHECK_MODULUS_REL,
+        source: c.source,
+      });
+    };
+    hdt('HDT/A', 1.8, c.hdtA_C);
+    hdt('HDT/B', 0.45, c.hdtB_C);
+    if (c.hot) modulus(`E${c.hot[0]}`, modulusMPa(m, DATASHEET_TIME_S, c.hot[0] + 273.15), c.hot[1]);
+    if (c.creep1000h_MPa !== null) modulus('creep 1000 h', creepModulusMPa(m, 1000 * 3600, T23_K), c.creep1000h_MPa);
+    if (c.conditionedE23_MPa !== undefined) modulus('E23', modulusMPa(m, DATASHEET_TIME_S, T23_K), c.conditionedE23_MPa);
+  }
+  return out;
+}
+
+describe('bundled families against their check values', () => {
+  const all = rows();
+  it('carries check values for every thermoplastic family, each with its source', () => {
+    const ids = new Set(FAMILY_CHECKS.map((c) => c.id));
+    for (const f of FAMILIES.filter((x) => x.params.kind !== 'crosslinked')) expect(ids.has(f.params.id), f.params.id).toBe(true);
+    for (const c of FAMILY_CHECKS) expect(c.source).toMatch(/common practice, from memory/);
+  });
+  it.each(all.filter((r) => !(r.key in KNOWN_GAPS)).map((r) => [r.key, r] as const))('%s within tolerance', (_key, r) => {
+    expect(r.ok, `${r.key}: simulated ${r.simulated.toFixed(1)}, typical ${r.typical} (${r.source})`).toBe(true);
+  });
+  it('still misses the known gaps (update KNOWN_GAPS when one is closed)', () => {
+    for (const key of Object.keys(KNOWN_GAPS)) {
+      const r = all.find((x) => x.key === key);
+      expect(r, key).toBeDefined();
+      expect(r?.ok, `${key} now passes: remove it from KNOWN_GAPS`).toBe(false);
+    }
+  });
+});
