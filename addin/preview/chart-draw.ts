@@ -15,15 +15,32 @@ export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChar
     type: 'line',
     data: {
       datasets: spec.series.map((s) => {
-        const c = s.reference ? '#30343a' : (PALETTE[colour++ % PALETTE.length] ?? '#000');
+        // Markers take the colour of no one candidate: they sit on the curves they belong to.
+        const c =
+          s.draw === 'reference'
+            ? '#30343a'
+            : s.draw === 'points'
+              ? '#1d1f22'
+              : s.draw === 'limits'
+                ? '#b00020'
+                : (PALETTE[colour++ % PALETTE.length] ?? '#000');
+        const markers = s.draw === 'points' || s.draw === 'limits';
         return {
           label: s.name,
-          data: s.xValues.map((x, i) => ({ x, y: s.yValues[i] ?? NaN })),
+          data: s.xValues.flatMap((x, i) => {
+            const y = s.yValues[i];
+            return y === null || y === undefined ? [] : [{ x, y }];
+          }),
           borderColor: c,
-          backgroundColor: c,
-          borderDash: s.reference ? [6, 4] : [],
-          pointRadius: s.reference ? 0 : 3,
-          borderWidth: 2,
+          backgroundColor: s.draw === 'points' ? '#ffffff' : c,
+          borderDash: s.draw === 'reference' ? [6, 4] : [],
+          showLine: !markers,
+          // The legend draws each entry as its series looks: a line (dashed for the required stiffness) or the marker.
+          pointStyle: s.draw === 'limits' ? 'rectRot' : s.draw === 'points' ? 'circle' : 'line',
+          pointRadius: s.draw === 'limits' ? 6 : s.draw === 'points' ? 3.5 : 0,
+          pointHoverRadius: markers ? 7 : 3,
+          borderWidth: markers ? 1.5 : 2,
+          order: markers ? 0 : 1,
         };
       }),
     },
@@ -33,10 +50,11 @@ export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChar
       maintainAspectRatio: false,
       parsing: false,
       plugins: {
-        legend: { position: 'bottom', labels: { boxWidth: 14 } },
+        legend: { position: 'bottom', labels: { usePointStyle: true, pointStyleWidth: 26, boxHeight: 8 } },
         tooltip: {
           callbacks: {
-            label: (item) => `${item.dataset.label ?? ''}: ${formatModulus(item.parsed.y ?? NaN)} MPa at ${item.parsed.x} degC`,
+            label: (item) =>
+              `${item.dataset.label ?? ''}: ${formatModulus(item.parsed.y ?? NaN)} MPa at ${Math.round((item.parsed.x ?? NaN) * 10) / 10} degC`,
           },
         },
       },

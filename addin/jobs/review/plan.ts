@@ -9,6 +9,7 @@ import { getFamily } from '../../../src/material/families.js';
 import { modulusAfterHistory } from '../../../src/answers/history.js';
 import { VERDICT } from '../../../src/answers/verdict.js';
 import { compileMaterial, modulusMPa, type Material } from '../../../src/material/model.js';
+import { maxTemperatureK, TEMP_SEARCH_K } from '../../../src/answers/inverse.js';
 import type { MaterialParams } from '../../../src/material/params.js';
 import { paramsFromBlockRows } from '../../../src/material/resolve.js';
 import { cToKelvin, kelvinToC, parseTimeS, SECONDS_PER_HOUR } from '../../../src/base/units.js';
@@ -19,7 +20,7 @@ import { modulusInput } from '../../../src/input/modulus.js';
 import { readRequired } from '../../../src/input/quantity.js';
 import { temperatureInput } from '../../../src/input/temperature.js';
 import { timeInput } from '../../../src/input/time.js';
-import { cellAddress, columnName, qualified, type Box, type Cell } from '../../sheet/a1.js';
+import { cellAddress, columnName, qualified, type Cell } from '../../sheet/a1.js';
 import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from '../notes.js';
 import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from '../../sheet/port.js';
 import type { Plan } from '../../shell/writer.js';
@@ -154,6 +155,8 @@ export interface ReviewRowResult {
   readonly moduliMPa: readonly number[];
   readonly lowestMPa: number;
   readonly pass: boolean;
+  /** What DERATE.MAXTEMP gives for the required modulus and the service time (degC); null when #N/A or under a duty cycle. */
+  readonly maxTempC: number | null;
 }
 
 export function reviewResults(input: ReviewInput): ReviewRowResult[] {
@@ -161,8 +164,49 @@ export function reviewResults(input: ReviewInput): ReviewRowResult[] {
     const m = material(c);
     const moduliMPa = input.temperaturesC.map((T) => reviewModulus(m, T, input.load));
     const lowestMPa = Math.min(...moduliMPa);
-    return { label: candidateLabel(c), moduliMPa, lowestMPa, pass: lowestMPa >= input.requiredMPa };
+    return { label: candidateLabel(c), moduliMPa, lowestMPa, pass: lowestMPa >= input.requiredMPa, maxTempC: maxTempC(m, input) };
   });
+}
+
+/** DERATE.MAXTEMP's answer (degC) by the same engine call, or null where it gives #N/A; none under a duty cycle. */
+function maxTempC(m: Material, input: ReviewInput): number | null {
+  if (input.load.kind !== 'time') return null;
+  const a = maxTemperatureK(m, input.requiredMPa, parseTimeS(input.load.time, 'service time'));
+  return a.status === 'found' && a.value !== null ? kelvinToC(a.value) : null;
+}
+
+/** Temperatures (degC) of each drawn curve: evenly spaced, as DERATE.CURVE spaces its points. */
+export const CURVE_SAMPLES = 51;
+
+/**
+ * The temperature span of the chart, degC: the service temperatures, widened to take in each MAXTEMP that
+ * lies within one more span's width (so a crossing just past the hottest service temperature shows), at
+ * least 20 degC wide, rounded out to 5 degC and kept inside the model's range.
+ */
+export function chartSpanC(temperaturesC: readonly number[], maxTempsC: readonly (number | null)[]): [number, number] {
+  let lo = Math.min(...temperaturesC);
+  let hi = Math.max(...temperaturesC);
+  if (hi - lo < 20) {
+    const mid = (lo + hi) / 2;
+    lo = mid - 10;
+    hi = mid + 10;
+  }
+  const width = hi - lo;
+  for (const t of maxTempsC) {
+    if (t === null) continue;
+    if (t > hi && t <= hi + width) hi = t;
+    if (t < lo && t >= lo - width) lo = t;
+  }
+  const [minK, maxK] = TEMP_SEARCH_K;
+  lo = Math.max(kelvinToC(minK), Math.floor((lo - 1) / 5) * 5);
+  hi = Math.min(kelvinToC(maxK), Math.ceil((hi + 1) / 5) * 5);
+  return [lo, hi];
+}
+
+/** The drawn curve's temperatures (degC) over the span. */
+export function curveTemperaturesC(span: readonly [number, number]): number[] {
+  const [lo, hi] = span;
+  return Array.from({ length: CURVE_SAMPLES }, (_, i) => round6(lo + ((hi - lo) * i) / (CURVE_SAMPLES - 1)));
 }
 
 // ---- the layout ----
@@ -177,6 +221,11 @@ export interface ReviewLayout {
   readonly firstCandidateRow: number;
   readonly referenceRow: number;
   readonly notesRow: number;
+  /** The chart's data: a header row, then the curves (temperature, one column per candidate, required) with the service points beside. */
+  readonly dataHeaderRow: number;
+  readonly dataRows: number;
+  /** The MAXTEMP table (time load only): a header row, then one row per candidate; -1 under a duty cycle. */
+  readonly limitsHeaderRow: number;
 }
 
 function loadLines(load: Load): number {
@@ -201,15 +250,31 @@ function assumptions(input: ReviewInput): string[] {
 
 export function reviewLayout(input: ReviewInput): ReviewLayout {
   const n = input.temperaturesC.length;
-  const cols = Math.max(n + 3, 3);
   const requiredRow = 1;
   const loadRow = 2;
   const headerRow = loadRow + loadLines(input.load) + 2;
   const firstCandidateRow = headerRow + 1;
   const referenceRow = firstCandidateRow + input.candidates.length;
   const notesRow = referenceRow + 2;
-  const rows = notesRow + 1 + assumptions(input).length + 2;
-  return { rows, cols, requiredRow, loadRow, headerRow, firstCandidateRow, referenceRow, notesRow };
+  const k = input.candidates.length;
+  const dataHeaderRow = notesRow + 1 + assumptions(input).length + 2 + 2;
+  const dataRows = Math.max(CURVE_SAMPLES, k * n);
+  const limitsHeaderRow = input.load.kind === 'time' ? dataHeaderRow + 1 + dataRows + 1 : -1;
+  const rows = limitsHeaderRow >= 0 ? limitsHeaderRow + 1 + k : dataHeaderRow + 1 + dataRows;
+  const cols = Math.max(n + 3, k + 5);
+  return {
+    rows,
+    cols,
+    requiredRow,
+    loadRow,
+    headerRow,
+    firstCandidateRow,
+    referenceRow,
+    notesRow,
+    dataHeaderRow,
+    dataRows,
+    limitsHeaderRow,
+  };
 }
 
 const abs = (c: Cell): string => cellAddress(c, { row: true, col: true });
@@ -303,29 +368,130 @@ export function reviewPlan(input: ReviewInput): Plan {
       put(cautionRow, 0, { value: 'Cautions' });
       put(cautionRow + 1, 0, { value: CAUTION });
 
-      return { cells, chart: reviewChart(input, results, L, sheet, o) };
+      // The chart's data, which the chart's series reference so that it follows any edit. Families are
+      // named by their row's label cell, parameter blocks by their range, as in the table above.
+      const matRefs = input.candidates.map((c, i) =>
+        c.kind === 'family' ? abs(at(L.firstCandidateRow + i, 0)) : qualified(c.range.sheet, c.range.box),
+      );
+      const span = chartSpanC(
+        input.temperaturesC,
+        results.map((r) => r.maxTempC),
+      );
+      const temps = curveTemperaturesC(span);
+      const k = input.candidates.length;
+      const D = L.dataHeaderRow;
+      put(D - 1, 0, {
+        value: `Chart data: E_r in MPa after ${describeLoad(load)}, ${temps.length} temperatures from ${span[0]} to ${span[1]} degC`,
+      });
+      put(D, 0, { value: 'Temperature, degC' });
+      results.forEach((res, i) => put(D, 1 + i, { value: res.label }));
+      put(D, k + 1, { value: 'Required, MPa' });
+      put(D, k + 2, { value: 'Material' });
+      put(D, k + 3, { value: 'Service T, degC' });
+      put(D, k + 4, { value: 'E_r there, MPa' });
+      const materials = input.candidates.map(material);
+      temps.forEach((T, r) => {
+        put(D + 1 + r, 0, { value: T });
+        const tempRef = cellAddress(at(D + 1 + r, 0), { col: true });
+        materials.forEach((m, i) =>
+          put(D + 1 + r, 1 + i, { formula: formulaFor(matRefs[i] ?? '', tempRef), value: reviewModulus(m, T, load), format: 'modulus' }),
+        );
+        put(D + 1 + r, k + 1, { formula: `=${required}`, value: input.requiredMPa, format: 'modulus' });
+      });
+      results.forEach((res, i) =>
+        input.temperaturesC.forEach((T, j) => {
+          const r = D + 1 + i * n + j;
+          put(r, k + 2, { value: res.label });
+          put(r, k + 3, { formula: `=${abs(at(L.headerRow, 1 + j))}`, value: T });
+          put(r, k + 4, { formula: `=${abs(at(L.firstCandidateRow + i, 1 + j))}`, value: res.moduliMPa[j] ?? NaN, format: 'modulus' });
+        }),
+      );
+      if (L.limitsHeaderRow >= 0 && load.kind === 'time') {
+        const M = L.limitsHeaderRow;
+        const t = abs(at(L.loadRow, 1));
+        const first = abs(at(D + 1, 0));
+        const last = abs(at(D + temps.length, 0));
+        put(M, 0, { value: 'Material' });
+        put(M, 1, { value: 'MAXTEMP, degC' });
+        put(M, 2, { value: 'On the chart, degC' });
+        put(M, 3, { value: 'Required, MPa' });
+        results.forEach((res, i) => {
+          const r = M + 1 + i;
+          const mt = cellAddress(at(r, 1));
+          const onChart = cellAddress(at(r, 2));
+          const shown = res.maxTempC !== null && res.maxTempC >= span[0] && res.maxTempC <= span[1] ? res.maxTempC : NA;
+          put(r, 0, { value: res.label });
+          put(r, 1, { formula: `=DERATE.MAXTEMP(${matRefs[i] ?? ''},${required},${t})`, value: res.maxTempC ?? NA });
+          // NA() outside the drawn span: Excel's scatter charts leave #N/A points out.
+          put(r, 2, { formula: `=IF(ISNUMBER(${mt}),IF(AND(${mt}>=${first},${mt}<=${last}),${mt},NA()),NA())`, value: shown });
+          put(r, 3, {
+            formula: `=IF(ISNUMBER(${onChart}),${required},NA())`,
+            value: shown === NA ? NA : input.requiredMPa,
+            format: 'modulus',
+          });
+        });
+      }
+
+      return { cells, chart: reviewChart(input, results, L, sheet, o, temps) };
     },
   };
 }
 
-function reviewChart(input: ReviewInput, results: readonly ReviewRowResult[], L: ReviewLayout, sheet: string, o: Cell): ChartSpec {
+/** What a cell showing #N/A holds in the plan (the in-page sheet shows it as text). */
+const NA = '#N/A';
+
+function reviewChart(
+  input: ReviewInput,
+  results: readonly ReviewRowResult[],
+  L: ReviewLayout,
+  sheet: string,
+  o: Cell,
+  temps: readonly number[],
+): ChartSpec {
+  const k = results.length;
   const n = input.temperaturesC.length;
-  const rowBox = (r: number): Box => ({ top: o.row + r, left: o.col + 1, bottom: o.row + r, right: o.col + n });
-  const x = { sheet, box: rowBox(L.headerRow) };
+  const column = (c: number, top: number, count: number): SheetRange => ({
+    sheet,
+    box: { top: o.row + top, left: o.col + c, bottom: o.row + top + count - 1, right: o.col + c },
+  });
+  const D = L.dataHeaderRow + 1;
+  const x = column(0, D, temps.length);
+  const materials = input.candidates.map(material);
   const series: ChartSeries[] = results.map((res, i) => ({
     name: res.label,
     x,
-    y: { sheet, box: rowBox(L.firstCandidateRow + i) },
-    xValues: input.temperaturesC,
-    yValues: res.moduliMPa,
+    y: column(1 + i, D, temps.length),
+    xValues: temps,
+    yValues: temps.map((T) => reviewModulus(materials[i] as Material, T, input.load)),
+    draw: 'curve',
   }));
+  series.push({
+    name: 'At the service temperatures',
+    x: column(k + 3, D, k * n),
+    y: column(k + 4, D, k * n),
+    xValues: results.flatMap(() => input.temperaturesC),
+    yValues: results.flatMap((r) => r.moduliMPa),
+    draw: 'points',
+  });
+  if (L.limitsHeaderRow >= 0) {
+    const [lo, hi] = [temps[0] ?? NaN, temps[temps.length - 1] ?? NaN];
+    const shown = results.map((r) => (r.maxTempC !== null && r.maxTempC >= lo && r.maxTempC <= hi ? r.maxTempC : null));
+    series.push({
+      name: 'MAXTEMP (required met up to)',
+      x: column(2, L.limitsHeaderRow + 1, k),
+      y: column(3, L.limitsHeaderRow + 1, k),
+      xValues: shown.filter((t): t is number => t !== null),
+      yValues: shown.filter((t) => t !== null).map(() => input.requiredMPa),
+      draw: 'limits',
+    });
+  }
   series.push({
     name: `Required ${input.requiredMPa} MPa`,
     x,
-    y: { sheet, box: rowBox(L.referenceRow) },
-    xValues: input.temperaturesC,
-    yValues: input.temperaturesC.map(() => input.requiredMPa),
-    reference: true,
+    y: column(k + 1, D, temps.length),
+    xValues: temps,
+    yValues: temps.map(() => input.requiredMPa),
+    draw: 'reference',
   });
   const left = o.col + L.cols + 1;
   return {
@@ -336,7 +502,7 @@ function reviewChart(input: ReviewInput, results: readonly ReviewRowResult[], L:
     yTitle: 'E_r, MPa (log scale)',
     logY: true,
     yMin: logAxisMinimum(
-      results.flatMap((r) => r.moduliMPa),
+      series.filter((s) => s.draw === 'curve').flatMap((s) => s.yValues.filter((v): v is number => v !== null)),
       input.requiredMPa,
     ),
     series,
