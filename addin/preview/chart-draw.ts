@@ -50,7 +50,21 @@ export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChar
       maintainAspectRatio: false,
       parsing: false,
       plugins: {
-        legend: { position: 'bottom', labels: { usePointStyle: true, pointStyleWidth: 26, boxHeight: 8 } },
+        legend: {
+          position: 'bottom',
+          labels: {
+            usePointStyle: true,
+            pointStyleWidth: 26,
+            boxHeight: 8,
+            // In the order of the series (drawing order puts the markers on top, but the legend lists curves first).
+            sort: (a, b) => (a.datasetIndex ?? 0) - (b.datasetIndex ?? 0),
+            // With point styles chart.js takes the legend's dash from the point, which has none: give the required line its dash.
+            generateLabels: (chart) =>
+              Chart.defaults.plugins.legend.labels
+                .generateLabels(chart)
+                .map((l) => (spec.series[l.datasetIndex ?? -1]?.draw === 'reference' ? { ...l, lineDash: [6, 4] } : l)),
+          },
+        },
         tooltip: {
           callbacks: {
             label: (item) =>
