@@ -17,9 +17,6 @@ import { blockRows, familyBlockPlan, parameterRows, searchFamilies, summarize } 
 import { formatModulus } from '../addin/sheet/port.js';
 import { paramsBlock } from '../functions/core/block.js';
 import {
-  chartSpanC,
-  CURVE_SAMPLES,
-  logAxisMinimum,
   paramsFromBlock,
   parseRequired,
   parseServiceTime,
@@ -29,6 +26,7 @@ import {
   reviewPlan,
   type ReviewInput,
 } from '../addin/jobs/review/plan.js';
+import { chartSpanC, CURVE_SAMPLES, logAxisMinimum } from '../addin/jobs/review/chart.js';
 import { CURVE } from '../functions/tables.js';
 import { MAXTEMP } from '../functions/limits.js';
 import { expectClose } from './expect.js';
