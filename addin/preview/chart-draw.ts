@@ -10,6 +10,8 @@ const PALETTE = ['#0b6e69', '#c26a00', '#6c3f8f', '#2f5597', '#9c3b24', '#5b6e17
 export type DrawnChart = Chart<'line', { x: number; y: number }[]>;
 
 export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChart {
+  // The axis ends where the curves end (the chart-data span), not at the next round number past it.
+  const xs = spec.series.filter((s) => s.draw === 'curve').flatMap((s) => s.xValues);
   let colour = 0;
   return new Chart<'line', { x: number; y: number }[]>(canvas, {
     type: 'line',
@@ -73,7 +75,12 @@ export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChar
         },
       },
       scales: {
-        x: { type: 'linear', title: { display: true, text: spec.xTitle } },
+        x: {
+          type: 'linear',
+          min: xs.length ? Math.min(...xs) : undefined,
+          max: xs.length ? Math.max(...xs) : undefined,
+          title: { display: true, text: spec.xTitle },
+        },
         y: { type: spec.logY ? 'logarithmic' : 'linear', min: spec.yMin, title: { display: true, text: spec.yTitle } },
       },
     },

@@ -517,6 +517,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     expect(gap?.below).toBeLessThan(60);
     expect(gap?.top).toBeGreaterThanOrEqual(0);
     expect(gap?.bottom).toBeLessThanOrEqual(gap?.height ?? 0);
+    await page.screenshot({ path: 'test-output/taskpane-field-error-320.png' });
     const link = page.locator('#status a.field-link');
     await expect(link.getAttribute('href')).resolves.toBe('#required');
     await page.focus('#temps');
