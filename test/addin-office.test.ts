@@ -152,24 +152,28 @@ describe('Office adapter through the real Excel client', () => {
     expect(host.sheets.map((s) => s.name)).toEqual(['Sheet1']);
   });
 
-  it('builds an XY chart in one request: a named series per row, a dashed reference, a log value axis', async () => {
+  it('builds an XY chart in one request: a curve per column of chart data, markers, a dashed reference, a log value axis', async () => {
     const { host, port } = setup();
     const spec = chartSpec();
     await port.addChart(spec);
     expect(host.syncs).toHaveLength(1);
     const [chart] = host.sheet('Sheet1').charts;
-    expect(chart).toMatchObject({ type: 'XYScatterLines', seriesBy: 'Rows', name: 'Resin Derate chart A1', legend: 'Bottom' });
+    // A one-column source added by 'Columns' gives one series (the stub's rule in excel-host-chart.ts, sourceSeries).
+    expect(chart).toMatchObject({ type: 'XYScatterLines', seriesBy: 'Columns', name: 'Resin Derate chart A1', legend: 'Bottom' });
+    // Block of 3 candidates x 3 temperatures at A1: chart data header on row 21, 51 curve rows 22-72, MAXTEMP rows 75-77.
     expect(chart?.series.map((s) => [s.name, s.x, s.y])).toEqual([
-      ['PC', 'Sheet1!B6:D6', 'Sheet1!B7:D7'],
-      ['POM', 'Sheet1!B6:D6', 'Sheet1!B8:D8'],
-      ['PBT', 'Sheet1!B6:D6', 'Sheet1!B9:D9'],
-      ['Required 800 MPa', 'Sheet1!B6:D6', 'Sheet1!B10:D10'],
+      ['PC', 'Sheet1!A22:A72', 'Sheet1!B22:B72'],
+      ['POM', 'Sheet1!A22:A72', 'Sheet1!C22:C72'],
+      ['PBT', 'Sheet1!A22:A72', 'Sheet1!D22:D72'],
+      ['At the service temperatures', 'Sheet1!G22:G30', 'Sheet1!H22:H30'],
+      ['MAXTEMP (required met up to)', 'Sheet1!C75:C77', 'Sheet1!D75:D77'],
+      ['Required 800 MPa', 'Sheet1!A22:A72', 'Sheet1!E22:E72'],
     ]);
-    expect(chart?.series.map((s) => s.lineStyle)).toEqual(['Continuous', 'Continuous', 'Continuous', 'Dash']);
-    expect(chart?.series[3]?.markerStyle).toBe('None');
+    expect(chart?.series.map((s) => s.lineStyle)).toEqual(['Continuous', 'Continuous', 'Continuous', 'None', 'None', 'Dash']);
+    expect(chart?.series.map((s) => s.markerStyle)).toEqual(['None', 'None', 'None', 'Circle', 'Diamond', 'None']);
     expect(chart?.valueAxis).toEqual({ scaleType: 'Logarithmic', logBase: 10, minimum: spec.yMin, title: 'E_r, MPa (log scale)' });
     expect(chart?.categoryAxis.title).toBe('Temperature, degC');
-    expect(chart?.position).toEqual(['H1', 'O18']);
+    expect(chart?.position).toEqual(['J1', 'Q18']);
     await port.removeChart('Sheet1', spec.name);
     expect(host.sheet('Sheet1').charts).toEqual([]);
     await expect(port.removeChart('Sheet1', spec.name)).rejects.toThrow(/no chart named/);

@@ -17,15 +17,18 @@ import { blockRows, familyBlockPlan, parameterRows, searchFamilies, summarize } 
 import { formatModulus } from '../addin/sheet/port.js';
 import { paramsBlock } from '../functions/core/block.js';
 import {
-  logAxisMinimum,
   paramsFromBlock,
   parseRequired,
   parseServiceTime,
   parseTemperatureList,
   reviewModulus,
+  reviewLayout,
   reviewPlan,
   type ReviewInput,
 } from '../addin/jobs/review/plan.js';
+import { chartSpanC, CURVE_SAMPLES, logAxisMinimum } from '../addin/jobs/review/chart.js';
+import { CURVE } from '../functions/tables.js';
+import { MAXTEMP } from '../functions/limits.js';
 import { expectClose } from './expect.js';
 
 const ENGINE = 'engine modulusMPa, the call DERATE.MODULUS makes (consistency of pane and functions)';
@@ -164,13 +167,68 @@ describe('review plan', () => {
     expect(text).toMatch(/licensed engineering review/);
   });
 
-  it('charts every candidate and the required line from the table cells', () => {
-    expect(chart?.series.map((s) => s.name)).toEqual(['PC', "PBT-mine ('My grades'!D1:E29)", 'Required 500 MPa']);
-    expect(chart?.series[0]?.x).toEqual({ sheet: 'Review 1', box: { top: 7, left: 2, bottom: 7, right: 3 } });
-    expect(chart?.series[1]?.y).toEqual({ sheet: 'Review 1', box: { top: 9, left: 2, bottom: 9, right: 3 } });
-    expect(chart?.series[2]?.reference).toBe(true);
+  it("charts each candidate's curve from its data column, the service points, MAXTEMP and the required line", () => {
+    expect(chart?.series.map((s) => [s.name, s.draw])).toEqual([
+      ['PC', 'curve'],
+      ["PBT-mine ('My grades'!D1:E29)", 'curve'],
+      ['At the service temperatures', 'points'],
+      ['MAXTEMP (required met up to)', 'limits'],
+      ['Required 500 MPa', 'reference'],
+    ]);
+    const L = reviewLayout(INPUT);
+    const D = 2 + L.dataHeaderRow + 1;
+    const column = (c: number, top: number, n: number) => ({
+      sheet: 'Review 1',
+      box: { top, left: 1 + c, bottom: top + n - 1, right: 1 + c },
+    });
+    expect(chart?.series[0]?.x).toEqual(column(0, D, CURVE_SAMPLES));
+    expect(chart?.series[1]?.y).toEqual(column(2, D, CURVE_SAMPLES));
+    expect(chart?.series[2]?.x).toEqual(column(5, D, 4));
+    expect(chart?.series[3]?.x).toEqual(column(2, 2 + L.limitsHeaderRow + 1, 2));
+    expect(chart?.series[4]?.y).toEqual(column(3, D, CURVE_SAMPLES));
     expect(chart?.logY).toBe(true);
     expect(chart?.place.left).toBeGreaterThan(1 + plan.cols);
+  });
+
+  it('writes the curves as DERATE.MODULUS cells over evenly spaced temperatures, as DERATE.CURVE spaces them', () => {
+    const L = reviewLayout(INPUT);
+    const D = L.dataHeaderRow;
+    expect(at(D, 1)?.value).toBe('PC');
+    expect(at(D + 1, 1)?.formula).toBe(`=DERATE.MODULUS($B$9,$B${D + 4},$C$5)`);
+    expect(at(D + 2, 2)?.formula).toBe(`=DERATE.MODULUS('My grades'!$D$1:$E$29,$B${D + 5},$C$5)`);
+    const temps = Array.from({ length: CURVE_SAMPLES }, (_, i) => Number(at(D + 1 + i, 0)?.value));
+    // functions/tables.ts CURVE: T_i = from + (to - from) i / (n - 1).
+    const curve = CURVE.invoke([['PC']], temps[0], temps[CURVE_SAMPLES - 1], CURVE_SAMPLES, 2000) as unknown[][];
+    curve.slice(1).forEach((row, i) => {
+      expectClose(temps[i] ?? NaN, Number(row[0]), { abs: 1e-6, source: 'DERATE.CURVE temperatures (functions/tables.ts)' });
+      expectClose(Number(at(D + 1 + i, 1)?.value), Number(row[1]), { rel: 1e-9, source: 'DERATE.CURVE moduli (functions/tables.ts)' });
+    });
+    // The service points repeat the table's own cells: PC at 23 degC is C8 (header) and C9 (its row).
+    expect(at(D + 1, 5)?.formula).toBe('=$C$8');
+    expect(at(D + 1, 6)?.formula).toBe('=$C$9');
+  });
+
+  it('gives each candidate the MAXTEMP the worksheet function gives, and marks it only inside the drawn span', () => {
+    const L = reviewLayout(INPUT);
+    const M = L.limitsHeaderRow;
+    expect(at(M + 1, 1)?.formula).toBe('=DERATE.MAXTEMP($B$9,$C$4,$C$5)');
+    const pc = MAXTEMP.invoke([['PC']], 500, 2000);
+    expect(typeof pc).toBe('number');
+    expectClose(Number(at(M + 1, 1)?.value), Number(pc), { rel: 1e-9, source: 'DERATE.MAXTEMP (functions/limits.ts)' });
+    const lo = Number(at(L.dataHeaderRow + 1, 0)?.value);
+    const hi = Number(at(L.dataHeaderRow + CURVE_SAMPLES, 0)?.value);
+    expect(lo).toBeLessThanOrEqual(23);
+    expect(hi).toBeGreaterThanOrEqual(80);
+    const shown = chart?.series[3]?.xValues ?? [];
+    for (const t of shown) expect(t >= lo && t <= hi).toBe(true);
+    expect(at(M + 1, 2)?.formula).toMatch(/^=IF\(ISNUMBER\(C\d+\),IF\(AND\(C\d+>=\$B\$\d+,C\d+<=\$B\$\d+\),C\d+,NA\(\)\),NA\(\)\)$/);
+  });
+
+  it('widens the span to a MAXTEMP just past the hottest service temperature, not to one far beyond it', () => {
+    // PC at 800 MPa after 1000 h: MAXTEMP about 114 degC (issue 14), past the hottest listed 100 degC.
+    expect(chartSpanC([23, 40, 60, 80, 100], [113.7])).toEqual([20, 115]);
+    expect(chartSpanC([23, 40, 60, 80, 100], [400])).toEqual([20, 105]);
+    expect(chartSpanC([60], [null])).toEqual([45, 75]);
   });
 
   it('refuses bad input before writing, naming it', () => {

@@ -28,7 +28,7 @@ describe('checkTarget', () => {
   it('reports every filled cell of the target and nothing outside it', async () => {
     const wb = new MemoryWorkbook();
     wb.typeInto('Sheet1', { row: 2, col: 1 }, 'mine');
-    wb.typeInto('Sheet1', { row: 40, col: 0 }, 'far away');
+    wb.typeInto('Sheet1', { row: 140, col: 0 }, 'far away');
     const plan = reviewPlan(REVIEW);
     const check = await checkTarget(wb, 'Sheet1', { row: 0, col: 0 }, plan);
     expect(check.status).toBe('occupied');
@@ -63,7 +63,7 @@ describe('commit', () => {
   for (const op of ['write', 'addChart'] as const) {
     it(`takes everything back when ${op} fails part-way`, async () => {
       const wb = new MemoryWorkbook();
-      wb.typeInto('Sheet1', { row: 30, col: 0 }, 'keep');
+      wb.typeInto('Sheet1', { row: 130, col: 0 }, 'keep');
       const before = snapshot(wb, 'Sheet1');
       wb.failWhen = (o) => o === op;
       await expect(commit(wb, reviewPlan(REVIEW), { newSheet: 'Review 1' })).rejects.toThrow(/refused/);
@@ -87,7 +87,7 @@ describe('undo', () => {
   it('removes exactly the cells and chart it wrote', async () => {
     const wb = new MemoryWorkbook();
     wb.typeInto('Sheet1', { row: 0, col: 9 }, 'beside');
-    wb.typeInto('Sheet1', { row: 30, col: 0 }, 'below');
+    wb.typeInto('Sheet1', { row: 130, col: 0 }, 'below');
     const before = snapshot(wb, 'Sheet1');
     const rec = await commit(wb, reviewPlan(REVIEW), { sheet: 'Sheet1', topLeft: { row: 0, col: 0 } });
     expect(wb.filledCount('Sheet1')).toBeGreaterThan(2);
@@ -111,7 +111,7 @@ describe('undo', () => {
   it('removes a sheet it added only when nothing else is left on it', async () => {
     const wb = new MemoryWorkbook();
     const a = await commit(wb, reviewPlan(REVIEW), { newSheet: 'Review 1' });
-    wb.typeInto('Review 1', { row: 50, col: 0 }, 'my note on the new sheet');
+    wb.typeInto('Review 1', { row: 150, col: 0 }, 'my note on the new sheet');
     await undo(wb, a);
     expect(await wb.sheetNames()).toEqual(['Sheet1', 'Review 1']);
     expect(wb.filledCount('Review 1')).toBe(1);

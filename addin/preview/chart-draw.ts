@@ -10,20 +10,39 @@ const PALETTE = ['#0b6e69', '#c26a00', '#6c3f8f', '#2f5597', '#9c3b24', '#5b6e17
 export type DrawnChart = Chart<'line', { x: number; y: number }[]>;
 
 export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChart {
+  // The axis ends where the curves end (the chart-data span), not at the next round number past it.
+  const xs = spec.series.filter((s) => s.draw === 'curve').flatMap((s) => s.xValues);
   let colour = 0;
   return new Chart<'line', { x: number; y: number }[]>(canvas, {
     type: 'line',
     data: {
       datasets: spec.series.map((s) => {
-        const c = s.reference ? '#30343a' : (PALETTE[colour++ % PALETTE.length] ?? '#000');
+        // Markers take the colour of no one candidate: they sit on the curves they belong to.
+        const c =
+          s.draw === 'reference'
+            ? '#30343a'
+            : s.draw === 'points'
+              ? '#1d1f22'
+              : s.draw === 'limits'
+                ? '#b00020'
+                : (PALETTE[colour++ % PALETTE.length] ?? '#000');
+        const markers = s.draw === 'points' || s.draw === 'limits';
         return {
           label: s.name,
-          data: s.xValues.map((x, i) => ({ x, y: s.yValues[i] ?? NaN })),
+          data: s.xValues.flatMap((x, i) => {
+            const y = s.yValues[i];
+            return y === null || y === undefined ? [] : [{ x, y }];
+          }),
           borderColor: c,
-          backgroundColor: c,
-          borderDash: s.reference ? [6, 4] : [],
-          pointRadius: s.reference ? 0 : 3,
-          borderWidth: 2,
+          backgroundColor: s.draw === 'points' ? '#ffffff' : c,
+          borderDash: s.draw === 'reference' ? [6, 4] : [],
+          showLine: !markers,
+          // The legend draws each entry as its series looks: a line (dashed for the required stiffness) or the marker.
+          pointStyle: s.draw === 'limits' ? 'rectRot' : s.draw === 'points' ? 'circle' : 'line',
+          pointRadius: s.draw === 'limits' ? 6 : s.draw === 'points' ? 3.5 : 0,
+          pointHoverRadius: markers ? 7 : 3,
+          borderWidth: markers ? 1.5 : 2,
+          order: markers ? 0 : 1,
         };
       }),
     },
@@ -33,15 +52,35 @@ export function drawChart(canvas: HTMLCanvasElement, spec: ChartSpec): DrawnChar
       maintainAspectRatio: false,
       parsing: false,
       plugins: {
-        legend: { position: 'bottom', labels: { boxWidth: 14 } },
+        legend: {
+          position: 'bottom',
+          labels: {
+            usePointStyle: true,
+            pointStyleWidth: 26,
+            boxHeight: 8,
+            // In the order of the series (drawing order puts the markers on top, but the legend lists curves first).
+            sort: (a, b) => (a.datasetIndex ?? 0) - (b.datasetIndex ?? 0),
+            // With point styles chart.js takes the legend's dash from the point, which has none: give the required line its dash.
+            generateLabels: (chart) =>
+              Chart.defaults.plugins.legend.labels
+                .generateLabels(chart)
+                .map((l) => (spec.series[l.datasetIndex ?? -1]?.draw === 'reference' ? { ...l, lineDash: [6, 4] } : l)),
+          },
+        },
         tooltip: {
           callbacks: {
-            label: (item) => `${item.dataset.label ?? ''}: ${formatModulus(item.parsed.y ?? NaN)} MPa at ${item.parsed.x} degC`,
+            label: (item) =>
+              `${item.dataset.label ?? ''}: ${formatModulus(item.parsed.y ?? NaN)} MPa at ${Math.round((item.parsed.x ?? NaN) * 10) / 10} degC`,
           },
         },
       },
       scales: {
-        x: { type: 'linear', title: { display: true, text: spec.xTitle } },
+        x: {
+          type: 'linear',
+          min: xs.length ? Math.min(...xs) : undefined,
+          max: xs.length ? Math.max(...xs) : undefined,
+          title: { display: true, text: spec.xTitle },
+        },
         y: { type: spec.logY ? 'logarithmic' : 'linear', min: spec.yMin, title: { display: true, text: spec.yTitle } },
       },
     },

@@ -262,16 +262,35 @@ export class MemoryView {
     return this.chartModule;
   }
 
-  /** Chart data as drawn, for the browser tests. */
-  chartData(): { name: string; series: { label: string; points: { x: number; y: number }[] }[]; logY: boolean }[] {
+  /** Chart data as drawn, and its legend entries as chart.js laid them out, for the browser tests. */
+  chartData(): {
+    name: string;
+    series: { label: string; points: { x: number; y: number }[]; showLine: boolean }[];
+    legend: { text: string; pointStyle: string; lineDash: number[]; hidden: boolean }[];
+    logY: boolean;
+  }[] {
     return [...this.charts.entries()].map(([name, c]) => ({
       name,
       logY: (c.options.scales?.['y'] as { type?: string } | undefined)?.type === 'logarithmic',
-      series: c.data.datasets.map((d) => ({ label: String(d.label), points: d.data })),
+      series: c.data.datasets.map((d) => ({ label: String(d.label), points: d.data, showLine: d.showLine !== false })),
+      legend: (c.legend?.legendItems ?? []).map((l) => ({
+        text: l.text,
+        pointStyle: String(l.pointStyle),
+        lineDash: l.lineDash ?? [],
+        hidden: l.hidden === true,
+      })),
     }));
   }
 }
 
+/** The chart in words for a screen reader: each candidate's curve by its ends, the markers by their points. */
 function chartDescription(spec: ChartSpec): string {
-  return `${spec.title}. ${spec.series.map((s) => `${s.name}: ${s.yValues.map((v) => (v === null ? '-' : formatModulus(v))).join(', ')} MPa`).join('; ')} at ${spec.series[0]?.xValues.join(', ')} degC.`;
+  const mpa = (v: number | null | undefined): string => (v === null || v === undefined ? '-' : `${formatModulus(v)} MPa`);
+  const parts = spec.series.map((s) => {
+    const n = s.xValues.length;
+    if (s.draw === 'curve' || s.draw === 'reference')
+      return `${s.name}: ${mpa(s.yValues[0])} at ${s.xValues[0]} degC to ${mpa(s.yValues[n - 1])} at ${s.xValues[n - 1]} degC`;
+    return `${s.name}: ${s.xValues.map((x, i) => `${mpa(s.yValues[i])} at ${Math.round(x * 10) / 10} degC`).join(', ')}`;
+  });
+  return `${spec.title}. ${parts.join('; ')}.`;
 }

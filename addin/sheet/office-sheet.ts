@@ -9,6 +9,7 @@ import {
   MODULUS_NUMBER_FORMAT,
   type CellValue,
   type CellWrite,
+  type ChartSeries,
   type ChartSpec,
   type RangeContent,
   type SheetPort,
@@ -136,20 +137,20 @@ export class OfficeSheet implements SheetPort {
       await this.run(async (ctx) => {
         const ws = ctx.workbook.worksheets.getItem(spec.sheet);
         const rangeOf = (s: SheetRange): Excel.Range => ctx.workbook.worksheets.getItem(s.sheet).getRange(boxAddress(s.box));
-        const chart = ws.charts.add('XYScatterLines', rangeOf(first.y), 'Rows');
+        // A one-column source is one series down the column; 'Rows' would make a series of each cell.
+        const by = first.y.box.left === first.y.box.right ? 'Columns' : 'Rows';
+        const chart = ws.charts.add('XYScatterLines', rangeOf(first.y), by);
         chart.name = spec.name;
         chart.title.text = spec.title;
         const s0 = chart.series.getItemAt(0);
         s0.name = first.name;
         s0.setXAxisValues(rangeOf(first.x));
+        drawAs(s0, first.draw);
         for (const s of rest) {
           const added = chart.series.add(s.name);
           added.setXAxisValues(rangeOf(s.x));
           added.setValues(rangeOf(s.y));
-          if (s.reference) {
-            added.format.line.lineStyle = 'Dash';
-            added.markerStyle = 'None';
-          }
+          drawAs(added, s.draw);
         }
         const y = chart.axes.valueAxis;
         if (spec.logY) {
@@ -196,4 +197,10 @@ export class OfficeSheet implements SheetPort {
       await ctx.sync();
     });
   }
+}
+
+/** Line and marker of a series by what it shows: curves as lines, points and limits as markers, the required stiffness dashed. */
+function drawAs(series: Excel.ChartSeries, draw: ChartSeries['draw']): void {
+  series.format.line.lineStyle = draw === 'curve' ? 'Continuous' : draw === 'reference' ? 'Dash' : 'None';
+  series.markerStyle = draw === 'points' ? 'Circle' : draw === 'limits' ? 'Diamond' : 'None';
 }

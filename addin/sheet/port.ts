@@ -34,8 +34,12 @@ export interface ChartSeries {
   /** The numbers the cells are expected to show, for the in-page chart. */
   readonly xValues: readonly number[];
   readonly yValues: readonly (number | null)[];
-  /** A reference line (the required stiffness) rather than a material. */
-  readonly reference?: boolean;
+  /**
+   * How it is drawn: 'curve' a line without markers (a candidate's modelled curve), 'points' markers only
+   * (the service temperatures on the curves), 'limits' markers only (each MAXTEMP on the required line),
+   * 'reference' a dashed line without markers (the required stiffness).
+   */
+  readonly draw: 'curve' | 'points' | 'limits' | 'reference';
 }
 
 export interface ChartSpec {

@@ -4,16 +4,19 @@
  * ranges typed by the user, and the form field an input error points at.
  */
 import { InputError } from '../../src/base/errors.js';
-import { parseRef, qualified, type Cell } from '../sheet/a1.js';
-import type { SheetPort, SheetRange } from '../sheet/port.js';
+import { parseRef, qualified, type Box, type Cell } from '../sheet/a1.js';
+import { filledCells, type SheetPort, type SheetRange } from '../sheet/port.js';
 import { ask } from './ask.js';
-import { byId } from './dom.js';
+import { byId, h } from './dom.js';
 import { describeError, say } from './messages.js';
 import { setUpTabs } from './tabs.js';
 import { checkTarget, commit, freeSheetName, undo, type Plan, type WriteRecord } from './writer.js';
 
 /** The element id of the form field an input error's argument names; undefined when the argument is not a job's. */
 export type FieldFinder = (argument: string) => string | undefined;
+
+/** Rows that must be empty under a suggested target (the lookup's block is about 30 rows; longer blocks are checked again on write). */
+const FREE_ROWS = 30;
 
 /** What every job gets: the sheet and the shared pieces of the pane. */
 export class Shell {
@@ -63,11 +66,38 @@ export class Shell {
     if (fields.length === 0) return;
     try {
       const sel = await this.port.selection();
-      const text = qualified(sel.sheet, { ...sel.box, bottom: sel.box.top, right: sel.box.left }, false);
+      const at = (await this.freeBelowWrites(sel)) ?? { row: sel.box.top, col: sel.box.left };
+      const text = qualified(sel.sheet, { top: at.row, left: at.col, bottom: at.row, right: at.col }, false);
       for (const id of fields) byId<HTMLInputElement>(id).value = text;
     } catch {
       // Excel refuses a selection read while a cell is being edited; the field keeps its last value.
     }
+  }
+
+  /**
+   * When the selection's top-left cell lies in a block the pane wrote (as it does right after a write), the
+   * first cell below that block, in its columns, with an empty area of FREE_ROWS rows under it; else null.
+   */
+  private async freeBelowWrites(sel: SheetRange): Promise<Cell | null> {
+    const boxes = this.history.filter((r) => r.receipt.sheet === sel.sheet).map((r) => r.receipt.box);
+    const inside = (c: Cell): Box | undefined =>
+      boxes.find((b) => c.row >= b.top && c.row <= b.bottom && c.col >= b.left && c.col <= b.right);
+    const hit = inside({ row: sel.box.top, col: sel.box.left });
+    if (!hit) return null;
+    // One blank row between blocks keeps them apart when read.
+    let row = hit.bottom + 2;
+    for (let tries = 0; tries < 20; tries++) {
+      const written = inside({ row, col: hit.left });
+      if (written) {
+        row = written.bottom + 2;
+        continue;
+      }
+      const box: Box = { top: row, left: hit.left, bottom: row + FREE_ROWS - 1, right: hit.right };
+      const filled = filledCells(await this.port.read({ sheet: sel.sheet, box }));
+      if (filled.length === 0) return { row, col: hit.left };
+      row += Math.max(...filled.map((c) => c.row)) + 2;
+    }
+    return null;
   }
 
   /** The selection's sheet and its top-left cell (0-based row and column). */
@@ -98,17 +128,59 @@ export class Shell {
     this.finders.push(find);
   }
 
-  /** Clears every aria-invalid mark, then marks the field an input error names (if a job knows it). */
-  markInvalid(e: unknown): void {
+  /**
+   * Clears every field message and aria-invalid mark, then marks the field an input error names (if a job
+   * knows it) and puts the message beside it. Returns that field, or null.
+   */
+  markInvalid(e: unknown): HTMLElement | null {
     for (const el of Array.from(document.querySelectorAll('[aria-invalid=true]'))) el.removeAttribute('aria-invalid');
-    if (!(e instanceof InputError)) return;
+    for (const msg of Array.from(document.querySelectorAll<HTMLElement>('.field-error'))) {
+      const field = document.querySelector(`[aria-describedby~="${msg.id}"]`);
+      const rest = (field?.getAttribute('aria-describedby') ?? '').split(/\s+/).filter((x) => x && x !== msg.id);
+      if (rest.length > 0) field?.setAttribute('aria-describedby', rest.join(' '));
+      else field?.removeAttribute('aria-describedby');
+      msg.remove();
+    }
+    if (!(e instanceof InputError)) return null;
     let id: string | undefined;
     for (const find of this.finders) {
       id = find(e.argument);
       if (id) break;
     }
     const el = id ? document.getElementById(id) : null;
-    if (el instanceof HTMLInputElement) el.setAttribute('aria-invalid', 'true');
+    if (!el || !id) return null;
+    if (el instanceof HTMLInputElement || el instanceof HTMLSelectElement) el.setAttribute('aria-invalid', 'true');
+    // Under the field's row (the field and its button), so that at any width the message sits by the field.
+    const msg = h('p', { id: `${id}-error`, class: 'field-error' }, describeError(e));
+    const row = el.parentElement?.classList.contains('inline') ? el.parentElement : el;
+    row.after(msg);
+    el.setAttribute('aria-describedby', [`${id}-error`, el.getAttribute('aria-describedby') ?? ''].join(' ').trim());
+    return el;
+  }
+
+  /** An error in the message line and, for an input error a job knows, beside its field, with a link from the one to the other. */
+  reportError(e: unknown): void {
+    const field = this.markInvalid(e);
+    if (!field) {
+      say(describeError(e), 'error');
+      return;
+    }
+    const link = h(
+      'a',
+      {
+        href: `#${field.id}`,
+        class: 'field-link',
+        onclick: (ev: Event) => {
+          ev.preventDefault();
+          field.focus();
+          field.scrollIntoView({ block: 'center' });
+        },
+      },
+      'Go to the field',
+    );
+    say(describeError(e), 'error', link);
+    // The field and its message are what to look at; the message line above keeps the summary and the link.
+    document.getElementById(`${field.id}-error`)?.scrollIntoView({ block: 'center' });
   }
 
   // ---------- safe write and undo ----------
@@ -138,6 +210,9 @@ export class Shell {
       const record = await commit(this.port, plan, target);
       this.history.push(record);
       this.updateUndo();
+      // The next write's default target is the free area below this one, not the cells just filled.
+      for (const id of Object.keys(this.follow)) this.follow[id] = true;
+      await this.refreshTarget();
       return record;
     } catch (e) {
       say(`Nothing was written: ${describeError(e)}`, 'error');

@@ -24,6 +24,7 @@ import {
 import { readCalibration, type CalibrationFields } from '../../addin/jobs/calibrate/request.js';
 import { calibrationLayout, runCalibration } from '../../addin/jobs/calibrate/plan.js';
 import { blockRows, paramsBlockRows } from '../../addin/jobs/lookup/plan.js';
+import { MAXTEMP } from '../../functions/limits.js';
 import { expectClose } from '../expect.js';
 
 let preview: Preview;
@@ -129,7 +130,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.click('#write-review');
     await page.waitForSelector('#ask:not([hidden])');
     await expect(page.textContent('#ask-text')).resolves.toMatch(
-      /Sheet1!A1:H19 .*\d+ cells there already hold something.*Nothing has been changed/,
+      /Sheet1!A1:H78 .*\d+ cells there already hold something.*Nothing has been changed/,
     );
     expect(await cell('Sheet1', 0, 0)).toMatchObject({ value: 'keep me (typed by the user)' });
     expect(await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'))).toBe(before);
@@ -182,37 +183,107 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await expect(page.locator('#review-summary tbody tr').allTextContents()).resolves.toHaveLength(3);
   });
 
-  it('draws a log-axis chart of the candidates with the required stiffness as a line', async () => {
+  it("draws each candidate's modelled curve densely, the service points, each MAXTEMP on the required line, and the required line in the legend", async () => {
     await page.waitForSelector('#charts figure canvas');
     const charts = await page.evaluate(() => window.resinDeratePreview?.view.chartData() ?? []);
     expect(charts).toHaveLength(1);
     const [chart] = charts;
-    expect(chart?.logY).toBe(true);
-    expect(chart?.series.map((s) => s.label)).toEqual(['PC', 'PBT', 'PP (Sheet1!D1:G33)', 'Required 800 MPa']);
-    const pc = compileMaterial(getFamily('PC').params);
-    expect(chart?.series[0]?.points.map((p) => p.x)).toEqual(TEMPS);
-    chart?.series[0]?.points.forEach((p, j) =>
-      expectClose(p.y, modulusMPa(pc, parseTimeS('1000 h'), cToKelvin(TEMPS[j] ?? NaN)), { rel: 1e-12, source: ENGINE }),
+    if (!chart) throw new Error('no chart');
+    expect(chart.logY).toBe(true);
+    const labels = ['PC', 'PBT', 'PP (Sheet1!D1:G33)'];
+    expect(chart.series.map((s) => s.label)).toEqual([
+      ...labels,
+      'At the service temperatures',
+      'MAXTEMP (required met up to)',
+      'Required 800 MPa',
+    ]);
+    const t = parseTimeS('1000 h');
+    const mats = ['PC', 'PBT', 'PP'].map((id) => compileMaterial(getFamily(id).params));
+    for (const [i, m] of mats.entries()) {
+      const curve = chart.series[i];
+      if (!curve) throw new Error(`no curve ${i}`);
+      expect(curve.showLine).toBe(true);
+      // Dense: the issue asks for the model's curve, not a polyline through the five service temperatures.
+      expect(curve.points.length).toBeGreaterThanOrEqual(40);
+      expect(curve.points[0]?.x).toBeLessThanOrEqual(23);
+      expect(curve.points.at(-1)?.x).toBeGreaterThanOrEqual(100);
+      curve.points.forEach((p, j) => {
+        expectClose(p.y, modulusMPa(m, t, cToKelvin(p.x)), { rel: 1e-12, source: ENGINE });
+        const prev = curve.points[j - 1];
+        if (prev) {
+          expect(p.x).toBeGreaterThan(prev.x);
+          // Relaxation modulus falls with temperature for a thermoplastic (Ferry, Viscoelastic Properties of Polymers, 1980, ch. 11).
+          expect(p.y).toBeLessThanOrEqual(prev.y * (1 + 1e-12));
+        }
+      });
+    }
+    const service = chart.series[3];
+    expect(service?.showLine).toBe(false);
+    expect(service?.points.map((p) => p.x)).toEqual([...TEMPS, ...TEMPS, ...TEMPS]);
+    service?.points.forEach((p, k) =>
+      expectClose(p.y, modulusMPa(mats[Math.floor(k / TEMPS.length)] as Material, t, cToKelvin(p.x)), { rel: 1e-12, source: ENGINE }),
     );
-    expect(chart?.series[3]?.points.map((p) => p.y)).toEqual([800, 800, 800, 800, 800]);
+    // Each MAXTEMP inside the drawn span is marked at the temperature DERATE.MAXTEMP gives, on the required line.
+    const span = [chart.series[0]?.points[0]?.x ?? NaN, chart.series[0]?.points.at(-1)?.x ?? NaN];
+    const expected = ['PC', 'PBT', 'PP']
+      .map((id) => MAXTEMP.invoke([[id]], 800, '1000 h'))
+      .filter((v): v is number => typeof v === 'number');
+    const inSpan = expected.filter((v) => v >= (span[0] ?? NaN) && v <= (span[1] ?? NaN));
+    const pcLimit = MAXTEMP.invoke([['PC']], 800, '1000 h');
+    // Issue 14: PC's MAXTEMP (113.7 degC when filed; the model has moved since) lies past the hottest service
+    // temperature, and the chart widens its span to show where the curve crosses.
+    expect(Number(pcLimit)).toBeGreaterThan(100);
+    expect(inSpan).toContain(pcLimit);
+    const limits = chart.series[4];
+    expect(limits?.showLine).toBe(false);
+    expect(limits?.points).toHaveLength(inSpan.length);
+    limits?.points.forEach((p, k) => {
+      expectClose(p.x, inSpan[k] ?? NaN, { abs: 0.01, source: 'DERATE.MAXTEMP (functions/limits.ts)' });
+      expect(p.y).toBe(800);
+    });
+    // The PC curve crosses 800 MPa where its marker is: the sampled points either side straddle the requirement.
+    const pc = chart.series[0]?.points ?? [];
+    const after = pc.findIndex((p) => p.x > Number(pcLimit));
+    expect(pc[after - 1]?.y).toBeGreaterThanOrEqual(800);
+    expect(pc[after]?.y).toBeLessThan(800);
+    expect(chart.series[5]?.points.every((p) => p.y === 800)).toBe(true);
+    // The legend draws the required stiffness as a dashed line of its own, the curves as lines, the markers as markers.
+    const legend = Object.fromEntries(chart.legend.map((l) => [l.text, l]));
+    expect(legend['Required 800 MPa']).toMatchObject({ pointStyle: 'line', hidden: false });
+    expect(legend['Required 800 MPa']?.lineDash.length).toBeGreaterThan(0);
+    for (const label of labels) expect(legend[label]).toMatchObject({ pointStyle: 'line', lineDash: [] });
+    expect(legend['MAXTEMP (required met up to)']?.pointStyle).toBe('rectRot');
+    expect(legend['At the service temperatures']?.pointStyle).toBe('circle');
     const stored = await page.evaluate(() =>
-      window.resinDeratePreview?.workbook.charts('Review 1').map((c) => c.series.map((s) => s.y.box)),
+      window.resinDeratePreview?.workbook.charts('Review 1').map((c) => c.series.map((s) => [s.x.box, s.y.box])),
     );
-    expect(stored?.[0]?.[0]).toEqual({ top: 6, left: 1, bottom: 6, right: 5 });
+    // In Excel the series read the chart-data cells the pane wrote: one column per candidate under the review.
+    expect(stored?.[0]?.[0]).toEqual([
+      { top: 22, left: 0, bottom: 72, right: 0 },
+      { top: 22, left: 1, bottom: 72, right: 1 },
+    ]);
+    expect((await cell('Review 1', 22, 1))?.formula).toBe('=DERATE.MODULUS($A$7,$A23,$B$3)');
     await page.screenshot({ path: 'test-output/taskpane-review.png', fullPage: true });
     await page.setViewportSize({ width: 1200, height: 1240 });
     await page.screenshot({ path: 'docs/taskpane.png' });
     await page.setViewportSize({ width: 1200, height: 900 });
   });
 
+  it('offers the first free cell below the review as the next target', async () => {
+    // The review went to 'Review 1'!A1:H78; the next write should not be offered those cells.
+    await expect(page.inputValue('#target')).resolves.toBe("'Review 1'!A80");
+  });
+
   it('writes a duty-cycle review with DERATE.DUTY read at each temperature', async () => {
     await page.click('#load-cycle-radio');
     await page.fill('#temps', '30, 70');
-    await page.fill('#target', 'Sheet1!A40');
+    // The default target (below the first review) is free: the write goes there without a question.
     await page.click('#write-review');
     await page.waitForSelector('.status.ok');
-    const c = await cell('Sheet1', 48, 1);
-    expect(c?.formula).toBe('=DERATE.DUTY($A49,$B$43:$B$44,$C$43:$C$44,$B$45,B$48)');
+    expect(await page.isHidden('#ask')).toBe(true);
+    await expect(page.textContent('#status')).resolves.toMatch(/^Wrote the review to 'Review 1'!A80:/);
+    const c = await cell('Review 1', 88, 1);
+    expect(c?.formula).toBe('=DERATE.DUTY($A89,$B$83:$B$84,$C$83:$C$84,$B$85,B$88)');
     const pc = compileMaterial(getFamily('PC').params);
     const segments = [
       { TK: cToKelvin(70), dtS: 8 * 3600 },
@@ -230,7 +301,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
       await page.waitForSelector('.status.ok >> text=Removed the');
     };
     await undoOnce();
-    expect(await cell('Sheet1', 48, 1)).toBeNull();
+    expect(await cell('Review 1', 88, 1)).toBeNull();
     expect(await sheets()).toEqual(['Sheet1', 'Review 1']);
     await undoOnce();
     expect(await sheets()).toEqual(['Sheet1']);
@@ -424,6 +495,43 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     const calibrateControls = ['cal-start', 'cal-e23', 'cal-hdta', 'cal-hdtb', 'cal-tg', 'cal-tm', 'cal-creep', 'cal-creep-time'];
     for (const id of [...calibrateControls, 'cal-creep-temp', 'cal-id', 'calibrate', 'cal-target', 'cal-write'])
       expect(reached, id).toContain(id);
+  });
+
+  it("at 320 px puts a bad field's message beside the field, and the message line links to it", async () => {
+    await page.setViewportSize({ width: 320, height: 700 });
+    await page.click('#tab-review');
+    await page.fill('#required', 'soft');
+    await page.click('#write-review');
+    await page.waitForSelector('.status.error');
+    const message = page.locator('#required-error');
+    await expect(message.textContent()).resolves.toMatch(/^Required modulus: /);
+    expect(await message.isVisible()).toBe(true);
+    await expect(page.getAttribute('#required', 'aria-describedby')).resolves.toMatch(/(^| )required-error( |$)/);
+    const gap = await page.evaluate(() => {
+      const field = document.getElementById('required')?.getBoundingClientRect();
+      const msg = document.getElementById('required-error')?.getBoundingClientRect();
+      return field && msg ? { below: msg.top - field.bottom, top: msg.top, bottom: msg.bottom, height: innerHeight } : null;
+    });
+    // Beside the field: directly under it (the hint may sit between), and on screen without scrolling.
+    expect(gap?.below).toBeGreaterThanOrEqual(0);
+    expect(gap?.below).toBeLessThan(60);
+    expect(gap?.top).toBeGreaterThanOrEqual(0);
+    expect(gap?.bottom).toBeLessThanOrEqual(gap?.height ?? 0);
+    await page.screenshot({ path: 'test-output/taskpane-field-error-320.png' });
+    const link = page.locator('#status a.field-link');
+    await expect(link.getAttribute('href')).resolves.toBe('#required');
+    await page.focus('#temps');
+    await link.click();
+    await expect(page.evaluate(() => document.activeElement?.id)).resolves.toBe('required');
+    // The next attempt clears the old message before it says anything new.
+    await page.fill('#required', '800');
+    await page.fill('#temps', '23, 900');
+    await page.click('#write-review');
+    await page.waitForSelector('#temps-error');
+    expect(await page.locator('.field-error').count()).toBe(1);
+    expect(await page.getAttribute('#required', 'aria-describedby')).toBe('required-hint');
+    await page.fill('#temps', '23, 40, 60, 80, 100');
+    await page.setViewportSize({ width: 1200, height: 900 });
   });
 
   it('is readable at the pane width of 320 px', async () => {

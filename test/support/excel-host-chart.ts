@@ -210,7 +210,7 @@ function newChart(host: ExcelHost, sheet: HostSheet, type: string, source: HostN
     source: source.qualified(),
     seriesBy,
     title: '',
-    series: [{ name: 'Series1', x: null, y: source.qualified(), lineStyle: 'Continuous', markerStyle: 'Automatic' }],
+    series: sourceSeries(source, seriesBy),
     valueAxis: { scaleType: 'Linear', logBase: 10, minimum: null, title: '' },
     categoryAxis: { title: '' },
     legend: 'Right',
@@ -218,4 +218,25 @@ function newChart(host: ExcelHost, sheet: HostSheet, type: string, source: HostN
   };
   sheet.charts.push(chart);
   return chart;
+}
+
+/**
+ * The series charts.add makes from its source: one per row ('Rows') or per column ('Columns'); 'Auto' runs
+ * the series along the longer side (from memory of Excel's "Select Data" behaviour; Microsoft Learn,
+ * "Excel.ChartCollection class", add: seriesBy "Specifies the way columns or rows are used as data series").
+ * So a one-column range added 'Rows' gives a one-point series per cell, the mistake this rule catches.
+ */
+function sourceSeries(source: RangeNode, seriesBy: string): HostSeries[] {
+  const { top, left, bottom, right } = source.box;
+  const rows = bottom - top + 1;
+  const cols = right - left + 1;
+  const byRows = seriesBy === 'Rows' || (seriesBy === 'Auto' && cols >= rows);
+  const count = byRows ? rows : cols;
+  return Array.from({ length: count }, (_, i) => ({
+    name: `Series${i + 1}`,
+    x: null,
+    y: source.qualifiedBox(byRows ? { top: top + i, left, bottom: top + i, right } : { top, left: left + i, bottom, right: left + i }),
+    lineStyle: 'Continuous',
+    markerStyle: 'Automatic',
+  }));
 }

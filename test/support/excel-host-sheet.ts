@@ -260,7 +260,11 @@ export class RangeNode extends SheetBound {
     super(host, ws);
   }
   qualified(): string {
-    return `${sheetPrefix(this.live().name)}!${a1(this.box)}`;
+    return this.qualifiedBox(this.box);
+  }
+  /** Another box on this range's sheet, with the sheet's name. */
+  qualifiedBox(box: Box): string {
+    return `${sheetPrefix(this.live().name)}!${a1(box)}`;
   }
   private grid<V>(f: (c: HostCell | undefined) => V): V[][] {
     const ws = this.live();

@@ -7,7 +7,7 @@ import type { CalibrationResult } from '../../../src/fit/calibrate.js';
 import { FAMILIES, getFamily } from '../../../src/material/families.js';
 import { qualified } from '../../sheet/a1.js';
 import { byId, h } from '../../shell/dom.js';
-import { capital, clearMessage, describeError, say } from '../../shell/messages.js';
+import { capital, clearMessage, say } from '../../shell/messages.js';
 import type { Shell } from '../../shell/shell.js';
 import { summarize } from '../lookup/plan.js';
 import { CALIBRATION_NOTE } from '../notes.js';
@@ -102,8 +102,7 @@ class CalibratePane {
       await this.shell.refreshTarget();
       byId('cal-result-title').scrollIntoView({ block: 'nearest' });
     } catch (e) {
-      this.shell.markInvalid(e);
-      say(describeError(e), 'error');
+      this.shell.reportError(e);
     } finally {
       button.disabled = false;
     }
@@ -133,8 +132,7 @@ class CalibratePane {
         this.review.offerBlock(record.receipt.sheet, box),
       );
     } catch (e) {
-      this.shell.markInvalid(e);
-      say(describeError(e), 'error');
+      this.shell.reportError(e);
     } finally {
       button.disabled = false;
     }

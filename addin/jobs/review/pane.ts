@@ -9,7 +9,7 @@ import { VERDICT } from '../../../src/answers/verdict.js';
 import { qualified, type Box } from '../../sheet/a1.js';
 import { formatModulus } from '../../sheet/port.js';
 import { byId, h } from '../../shell/dom.js';
-import { clearMessage, describeError, say } from '../../shell/messages.js';
+import { clearMessage, say } from '../../shell/messages.js';
 import type { Shell } from '../../shell/shell.js';
 import {
   checkCycle,
@@ -37,6 +37,7 @@ const FIELD_FOR: Record<string, string> = {
   'duty cycle': 'add-step',
   candidates: 'add-family',
   target: 'target',
+  'parameter block': 'add-block',
 };
 
 /** The review job's handle for the other jobs. */
@@ -140,7 +141,7 @@ class ReviewPane {
       byId<HTMLInputElement>('add-block').value = '';
       say(`Added the parameter block ${where}.`, 'ok');
     } catch (e) {
-      say(describeError(e), 'error');
+      this.shell.reportError(e);
     }
   }
 
@@ -271,8 +272,7 @@ class ReviewPane {
         'ok',
       );
     } catch (e) {
-      this.shell.markInvalid(e);
-      say(describeError(e), 'error');
+      this.shell.reportError(e);
     } finally {
       button.disabled = false;
     }

@@ -9,6 +9,7 @@ import { getFamily } from '../../../src/material/families.js';
 import { modulusAfterHistory } from '../../../src/answers/history.js';
 import { VERDICT } from '../../../src/answers/verdict.js';
 import { compileMaterial, modulusMPa, type Material } from '../../../src/material/model.js';
+import { maxTemperatureK } from '../../../src/answers/inverse.js';
 import type { MaterialParams } from '../../../src/material/params.js';
 import { paramsFromBlockRows } from '../../../src/material/resolve.js';
 import { cToKelvin, kelvinToC, parseTimeS, SECONDS_PER_HOUR } from '../../../src/base/units.js';
@@ -19,10 +20,11 @@ import { modulusInput } from '../../../src/input/modulus.js';
 import { readRequired } from '../../../src/input/quantity.js';
 import { temperatureInput } from '../../../src/input/temperature.js';
 import { timeInput } from '../../../src/input/time.js';
-import { cellAddress, columnName, qualified, type Box, type Cell } from '../../sheet/a1.js';
+import { cellAddress, qualified, type Cell } from '../../sheet/a1.js';
 import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from '../notes.js';
-import { type CellWrite, type ChartSeries, type ChartSpec, type RangeContent, type SheetRange } from '../../sheet/port.js';
+import { type CellWrite, type RangeContent, type SheetRange } from '../../sheet/port.js';
 import type { Plan } from '../../shell/writer.js';
+import { chartSpanC, CURVE_SAMPLES, curveTemperaturesC, describeLoad, NA, reviewChart } from './chart.js';
 
 export type Candidate =
   | { readonly kind: 'family'; readonly id: string }
@@ -154,6 +156,8 @@ export interface ReviewRowResult {
   readonly moduliMPa: readonly number[];
   readonly lowestMPa: number;
   readonly pass: boolean;
+  /** What DERATE.MAXTEMP gives for the required modulus and the service time (degC); null when #N/A or under a duty cycle. */
+  readonly maxTempC: number | null;
 }
 
 export function reviewResults(input: ReviewInput): ReviewRowResult[] {
@@ -161,8 +165,15 @@ export function reviewResults(input: ReviewInput): ReviewRowResult[] {
     const m = material(c);
     const moduliMPa = input.temperaturesC.map((T) => reviewModulus(m, T, input.load));
     const lowestMPa = Math.min(...moduliMPa);
-    return { label: candidateLabel(c), moduliMPa, lowestMPa, pass: lowestMPa >= input.requiredMPa };
+    return { label: candidateLabel(c), moduliMPa, lowestMPa, pass: lowestMPa >= input.requiredMPa, maxTempC: maxTempC(m, input) };
   });
+}
+
+/** DERATE.MAXTEMP's answer (degC) by the same engine call, or null where it gives #N/A; none under a duty cycle. */
+function maxTempC(m: Material, input: ReviewInput): number | null {
+  if (input.load.kind !== 'time') return null;
+  const a = maxTemperatureK(m, input.requiredMPa, parseTimeS(input.load.time, 'service time'));
+  return a.status === 'found' && a.value !== null ? kelvinToC(a.value) : null;
 }
 
 // ---- the layout ----
@@ -177,6 +188,11 @@ export interface ReviewLayout {
   readonly firstCandidateRow: number;
   readonly referenceRow: number;
   readonly notesRow: number;
+  /** The chart's data: a header row, then the curves (temperature, one column per candidate, required) with the service points beside. */
+  readonly dataHeaderRow: number;
+  readonly dataRows: number;
+  /** The MAXTEMP table (time load only): a header row, then one row per candidate; -1 under a duty cycle. */
+  readonly limitsHeaderRow: number;
 }
 
 function loadLines(load: Load): number {
@@ -201,24 +217,34 @@ function assumptions(input: ReviewInput): string[] {
 
 export function reviewLayout(input: ReviewInput): ReviewLayout {
   const n = input.temperaturesC.length;
-  const cols = Math.max(n + 3, 3);
   const requiredRow = 1;
   const loadRow = 2;
   const headerRow = loadRow + loadLines(input.load) + 2;
   const firstCandidateRow = headerRow + 1;
   const referenceRow = firstCandidateRow + input.candidates.length;
   const notesRow = referenceRow + 2;
-  const rows = notesRow + 1 + assumptions(input).length + 2;
-  return { rows, cols, requiredRow, loadRow, headerRow, firstCandidateRow, referenceRow, notesRow };
+  const k = input.candidates.length;
+  const dataHeaderRow = notesRow + 1 + assumptions(input).length + 2 + 2;
+  const dataRows = Math.max(CURVE_SAMPLES, k * n);
+  const limitsHeaderRow = input.load.kind === 'time' ? dataHeaderRow + 1 + dataRows + 1 : -1;
+  const rows = limitsHeaderRow >= 0 ? limitsHeaderRow + 1 + k : dataHeaderRow + 1 + dataRows;
+  const cols = Math.max(n + 3, k + 5);
+  return {
+    rows,
+    cols,
+    requiredRow,
+    loadRow,
+    headerRow,
+    firstCandidateRow,
+    referenceRow,
+    notesRow,
+    dataHeaderRow,
+    dataRows,
+    limitsHeaderRow,
+  };
 }
 
 const abs = (c: Cell): string => cellAddress(c, { row: true, col: true });
-
-function describeLoad(load: Load): string {
-  if (load.kind === 'time') return typeof load.time === 'number' ? `${load.time} h` : load.time;
-  const hours = load.steps.reduce((s, x) => s + x.hours, 0);
-  return `${load.cycles} cycles of ${hours} h`;
-}
 
 export function reviewPlan(input: ReviewInput): Plan {
   checkReview(input);
@@ -303,53 +329,72 @@ export function reviewPlan(input: ReviewInput): Plan {
       put(cautionRow, 0, { value: 'Cautions' });
       put(cautionRow + 1, 0, { value: CAUTION });
 
-      return { cells, chart: reviewChart(input, results, L, sheet, o) };
+      // The chart's data, which the chart's series reference so that it follows any edit. Families are
+      // named by their row's label cell, parameter blocks by their range, as in the table above.
+      const matRefs = input.candidates.map((c, i) =>
+        c.kind === 'family' ? abs(at(L.firstCandidateRow + i, 0)) : qualified(c.range.sheet, c.range.box),
+      );
+      const span = chartSpanC(
+        input.temperaturesC,
+        results.map((r) => r.maxTempC),
+      );
+      const temps = curveTemperaturesC(span);
+      const k = input.candidates.length;
+      const D = L.dataHeaderRow;
+      put(D - 1, 0, {
+        value: `Chart data: E_r in MPa after ${describeLoad(load)}, ${temps.length} temperatures from ${span[0]} to ${span[1]} degC`,
+      });
+      put(D, 0, { value: 'Temperature, degC' });
+      results.forEach((res, i) => put(D, 1 + i, { value: res.label }));
+      put(D, k + 1, { value: 'Required, MPa' });
+      put(D, k + 2, { value: 'Material' });
+      put(D, k + 3, { value: 'Service T, degC' });
+      put(D, k + 4, { value: 'E_r there, MPa' });
+      // Each candidate's curve (MPa at each of temps), the numbers its column shows and the chart draws.
+      const curves = input.candidates.map(material).map((m) => temps.map((T) => reviewModulus(m, T, load)));
+      temps.forEach((T, r) => {
+        put(D + 1 + r, 0, { value: T });
+        const tempRef = cellAddress(at(D + 1 + r, 0), { col: true });
+        curves.forEach((curve, i) =>
+          put(D + 1 + r, 1 + i, { formula: formulaFor(matRefs[i] ?? '', tempRef), value: curve[r] ?? NaN, format: 'modulus' }),
+        );
+        put(D + 1 + r, k + 1, { formula: `=${required}`, value: input.requiredMPa, format: 'modulus' });
+      });
+      results.forEach((res, i) =>
+        input.temperaturesC.forEach((T, j) => {
+          const r = D + 1 + i * n + j;
+          put(r, k + 2, { value: res.label });
+          put(r, k + 3, { formula: `=${abs(at(L.headerRow, 1 + j))}`, value: T });
+          put(r, k + 4, { formula: `=${abs(at(L.firstCandidateRow + i, 1 + j))}`, value: res.moduliMPa[j] ?? NaN, format: 'modulus' });
+        }),
+      );
+      if (L.limitsHeaderRow >= 0 && load.kind === 'time') {
+        const M = L.limitsHeaderRow;
+        const t = abs(at(L.loadRow, 1));
+        const first = abs(at(D + 1, 0));
+        const last = abs(at(D + temps.length, 0));
+        put(M, 0, { value: 'Material' });
+        put(M, 1, { value: 'MAXTEMP, degC' });
+        put(M, 2, { value: 'On the chart, degC' });
+        put(M, 3, { value: 'Required, MPa' });
+        results.forEach((res, i) => {
+          const r = M + 1 + i;
+          const mt = cellAddress(at(r, 1));
+          const onChart = cellAddress(at(r, 2));
+          const shown = res.maxTempC !== null && res.maxTempC >= span[0] && res.maxTempC <= span[1] ? res.maxTempC : NA;
+          put(r, 0, { value: res.label });
+          put(r, 1, { formula: `=DERATE.MAXTEMP(${matRefs[i] ?? ''},${required},${t})`, value: res.maxTempC ?? NA });
+          // NA() outside the drawn span: Excel's scatter charts leave #N/A points out.
+          put(r, 2, { formula: `=IF(ISNUMBER(${mt}),IF(AND(${mt}>=${first},${mt}<=${last}),${mt},NA()),NA())`, value: shown });
+          put(r, 3, {
+            formula: `=IF(ISNUMBER(${onChart}),${required},NA())`,
+            value: shown === NA ? NA : input.requiredMPa,
+            format: 'modulus',
+          });
+        });
+      }
+
+      return { cells, chart: reviewChart(input, results, L, sheet, o, temps, curves) };
     },
   };
-}
-
-function reviewChart(input: ReviewInput, results: readonly ReviewRowResult[], L: ReviewLayout, sheet: string, o: Cell): ChartSpec {
-  const n = input.temperaturesC.length;
-  const rowBox = (r: number): Box => ({ top: o.row + r, left: o.col + 1, bottom: o.row + r, right: o.col + n });
-  const x = { sheet, box: rowBox(L.headerRow) };
-  const series: ChartSeries[] = results.map((res, i) => ({
-    name: res.label,
-    x,
-    y: { sheet, box: rowBox(L.firstCandidateRow + i) },
-    xValues: input.temperaturesC,
-    yValues: res.moduliMPa,
-  }));
-  series.push({
-    name: `Required ${input.requiredMPa} MPa`,
-    x,
-    y: { sheet, box: rowBox(L.referenceRow) },
-    xValues: input.temperaturesC,
-    yValues: input.temperaturesC.map(() => input.requiredMPa),
-    reference: true,
-  });
-  const left = o.col + L.cols + 1;
-  return {
-    name: `Resin Derate chart ${columnName(o.col)}${o.row + 1}`,
-    sheet,
-    title: `E_r after ${describeLoad(input.load)} vs temperature`,
-    xTitle: 'Temperature, degC',
-    yTitle: 'E_r, MPa (log scale)',
-    logY: true,
-    yMin: logAxisMinimum(
-      results.flatMap((r) => r.moduliMPa),
-      input.requiredMPa,
-    ),
-    series,
-    place: { top: o.row, left, bottom: o.row + 17, right: left + 7 },
-  };
-}
-
-/**
- * Lower end of the log axis: a power of ten at or below the smallest value, but no more than four decades
- * under the required modulus, so that a melted candidate does not squash the rest of the chart.
- */
-export function logAxisMinimum(values: readonly number[], requiredMPa: number): number {
-  const floor = requiredMPa / 1e4;
-  const smallest = Math.min(requiredMPa, ...values.filter((v) => v > 0));
-  return 10 ** Math.floor(Math.log10(Math.max(smallest, floor)));
 }
