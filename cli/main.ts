@@ -7,6 +7,7 @@ import {
   cyclesInput,
   retainedStressMPa,
   deratingTable,
+  durationText,
   equivalentTimeS,
   FAMILIES,
   familyInput,
@@ -16,23 +17,31 @@ import {
   listInput,
   pronyToRecord,
   pronyToTable,
+  ratioText,
   kelvinToC,
   maxTemperatureK,
   maxTimeS,
   modulusAfterHistory,
   modulusInput,
+  modulusRangeText,
+  modulusText,
+  mpaValue,
   paramsToRecord,
   resolveMaterial,
   segmentsInput,
   shiftLog10,
+  significant,
   simulateHdt,
   strainInput,
+  stressText,
   temperatureInput,
+  temperatureText,
+  temperatureValue,
   timeInput,
   type InverseAnswer,
   type Material,
 } from '../src/index.js';
-import { csvTable, markdownTable, sig } from './format.js';
+import { csvTable, markdownTable } from './format.js';
 import { runDemo } from './demo.js';
 import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
 import { CALIBRATION_COMMANDS } from './calibration.js';
@@ -129,7 +138,7 @@ const COMMANDS: Record<string, Command> = {
         temperature_C: kelvinToC(TK),
         time_s: tS,
       };
-      emit(out, v, data, `${m.params.id}: ${sig(b.centralMPa)} MPa (${b.region}; band ${sig(b.lowMPa)} to ${sig(b.highMPa)} MPa)\n`);
+      emit(out, v, data, `${m.params.id}: ${modulusText(b.centralMPa)} (${b.region}; band ${modulusRangeText(b.lowMPa, b.highMPa)})\n`);
     },
   },
   shift: {
@@ -141,7 +150,12 @@ const COMMANDS: Record<string, Command> = {
       const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
       const log10aT = shiftLog10(m.shift, TK);
       const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
-      emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
+      emit(
+        out,
+        v,
+        { log10_aT: log10aT, law },
+        `log10 aT = ${significant(log10aT, 4)} (${law}, reference Tg = ${temperatureText(m.params.Tg_C)})\n`,
+      );
     },
   },
   maxtemp: {
@@ -159,7 +173,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { temperature_C: T, status: a.status, ...(T === null ? { not_reached: note } : {}) },
-        T === null ? `${note}\n` : `${sig(T, 4)} degC\n`,
+        T === null ? `${note}\n` : `${temperatureText(T)}\n`,
       );
     },
   },
@@ -182,7 +196,7 @@ const COMMANDS: Record<string, Command> = {
           status: a.status,
           ...(a.value === null ? { not_reached: note } : {}),
         },
-        a.value === null ? `${note}\n` : `${sig(a.value / 3600, 4)} h\n`,
+        a.value === null ? `${note}\n` : `${durationText(a.value)}\n`,
       );
     },
   },
@@ -195,7 +209,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = need(v, 'time', timeInput);
       const TK = apparentTgK(m, tS);
       const T = TK === null ? null : kelvinToC(TK);
-      emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${sig(T, 4)} degC\n`);
+      emit(out, v, { temperature_C: T }, T === null ? 'not reached by the shift law\n' : `${temperatureText(T)}\n`);
     },
   },
   eqtime: {
@@ -223,7 +237,7 @@ const COMMANDS: Record<string, Command> = {
           modulus_MPa: after.modulusMPa,
           region: after.region,
         },
-        `${sig(teq / 3600, 4)} h at ${sig(kelvinToC(refK), 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+        `${durationText(teq)} at ${temperatureText(kelvinToC(refK))}; modulus after the history ${modulusText(after.modulusMPa)} (${after.region})\n`,
       );
     },
   },
@@ -242,7 +256,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { stress_MPa: r.stressMPa, modulus_MPa: r.modulusMPa, region: r.region, strain, beyond_linear_range: r.beyondLinearRange },
-        `${sig(r.stressMPa)} MPa retained (modulus ${sig(r.modulusMPa)} MPa, ${r.region})${warn}\n`,
+        `${stressText(r.stressMPa)} retained (modulus ${modulusText(r.modulusMPa)}, ${r.region})${warn}\n`,
       );
     },
   },
@@ -258,7 +272,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { temperature_C: r.temperatureC },
-        r.temperatureC === null ? 'not reached below 500 degC\n' : `${sig(r.temperatureC, 4)} degC\n`,
+        r.temperatureC === null ? 'not reached below 500 degC\n' : `${temperatureText(r.temperatureC)}\n`,
       );
     },
   },
@@ -284,9 +298,19 @@ const COMMANDS: Record<string, Command> = {
         out.write(JSON.stringify({ time_s: tS, reference: { temperature_C: 23, time_s: 3600 }, rows: data }, null, 2) + '\n');
         return;
       }
-      const header = ['family', ...temps.map((t) => `${sig(t, 4)} degC MPa`), ...temps.map((t) => `ratio ${sig(t, 4)}`)];
-      const body = rows.map((r) => [r.id, ...r.cells.map((c) => sig(c.modulusMPa)), ...r.cells.map((c) => c.ratio.toFixed(2))]);
-      out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
+      const header = [
+        'family',
+        ...temps.map((t) => `${temperatureValue(t)} degC MPa`),
+        ...temps.map((t) => `ratio ${temperatureValue(t)}`),
+      ];
+      // CSV is read by spreadsheets, so its cells stay numbers (4 significant figures); markdown is read by people.
+      const csvBody = rows.map((r) => [
+        r.id,
+        ...r.cells.map((c) => significant(c.modulusMPa, 4)),
+        ...r.cells.map((c) => significant(c.ratio, 4)),
+      ]);
+      const mdBody = rows.map((r) => [r.id, ...r.cells.map((c) => mpaValue(c.modulusMPa)), ...r.cells.map((c) => ratioText(c.ratio))]);
+      out.write(format === 'csv' ? csvTable(header, csvBody) : markdownTable(header, mdBody) + `\n${CAUTION}\n`);
     },
   },
   ...CALIBRATION_COMMANDS,

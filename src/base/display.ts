@@ -98,3 +98,10 @@ export function ratioText(ratio: number): string {
   if (ratio >= 0 && ratio < 0.005) return 'below 0.01';
   return unsigned0(ratio.toFixed(2));
 }
+
+/** A value in a named display unit without the unit: 'MPa' as mpaValue, 'degC' as temperatureValue, anything else to 4 significant figures. */
+export function valueIn(x: number, unit: string): string {
+  if (unit === 'MPa') return mpaValue(x);
+  if (unit === 'degC') return temperatureValue(x);
+  return significant(x, 4);
+}
