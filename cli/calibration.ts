@@ -76,13 +76,14 @@ const MODULUS_POINT = 'TIME@TEMPERATURE:MODULUS items such as "1000 h@23 degC:19
 const FIELD_NAMES: readonly string[] = NUMERIC_FIELDS.map((f) => f.key);
 
 /** --free: parameter names, each checked here so that a typo reads as one rather than as a fitting problem. */
-function freeFields(text: string | undefined): NumericField[] {
+function freeFields(text: string | undefined): NumericField[] | undefined {
   const names = list(text);
   for (const name of names) {
     if (!FIELD_NAMES.includes(name))
       throw new InputError('--free', `'${name}' is not a parameter name; the names are ${FIELD_NAMES.join(', ')}`);
   }
-  return names as NumericField[];
+  // No --free: undefined, so the engine picks its own candidates (an empty list would free nothing).
+  return names.length > 0 ? (names as NumericField[]) : undefined;
 }
 
 /** The datasheet options of calibrate, by the engine's name of the input each gives. */
