@@ -142,20 +142,6 @@ function hdtPoints(text: string | undefined): HdtPoint[] {
   );
 }
 
-/** The engine's argument names in a calibration, as the CLI's options. */
-const CALIBRATE_OPTION: Readonly<Record<string, string>> = {
-  start: '--family',
-  modulus23: '--modulus23',
-  Tg: '--tg',
-  Tm: '--tm',
-  hdt: '--hdt',
-  free: '--free',
-  inputs: 'datasheet options',
-  'creep modulus': '--creep',
-  'creep time': '--creep',
-  'creep temperature': '--creep',
-};
-
 /** Runs an engine call whose InputErrors name engine words; they come back naming the CLI option. */
 function asOptions<T>(names: Readonly<Record<string, string>>, f: () => T): T {
   try {
@@ -236,7 +222,8 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       };
       const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
-      const r = asOptions(CALIBRATE_OPTION, () => calibrateDatasheet(start, inputs, { ...(free ? { free } : {}), ...(id ? { id } : {}) }));
+      // The engine's argument names become options through `names` above (cli/failure.ts).
+      const r = calibrateDatasheet(start, inputs, { ...(free ? { free } : {}), ...(id ? { id } : {}) });
       const data = {
         params: paramsToRecord(r.params),
         free: r.free,
