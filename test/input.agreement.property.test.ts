@@ -13,6 +13,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { main } from '../cli/main.js';
 import { maybe, need, type Values } from '../cli/command.js';
+import { oneLine as cliLine } from '../cli/failure.js';
 import { readCalibration, type CalibrationFields } from '../addin/jobs/calibrate/request.js';
 import { checkCycle, parseRequired, parseServiceTime, parseTemperatureList } from '../addin/jobs/review/plan.js';
 import { ArgumentProblem } from '../functions/core/errors.js';
@@ -332,7 +333,8 @@ function agree(label: string, ws: unknown, c: CliAnswer, key: string, names: Rea
     const m = /^([a-z_]+): (.*)$/s.exec(ws.message);
     expect(m, `${label}: ${ws.message}`).not.toBeNull();
     expect(c.option, label).toBe(names[m?.[1] ?? '']);
-    expect(c.problem, label).toBe(oneLine(m?.[2] ?? ''));
+    // The CLI prints one line with control characters (a typed tab) as spaces (cli/failure.ts, README: one stderr line).
+    expect(c.problem, label).toBe(cliLine(m?.[2] ?? ''));
     return;
   }
   expect(c.code, `${label}: the worksheet answers ${String(ws)}, the CLI says ${c.problem}`).toBe(0);
