@@ -25,6 +25,7 @@ import {
   meltingInput,
   modulusInput,
   modulusMPa,
+  modulusText,
   NUMERIC_FIELDS,
   type NumericField,
   paramsToRecord,
@@ -34,17 +35,21 @@ import {
   readCurveTable,
   readDmaTable,
   resolveMaterial,
+  significant,
   splitList,
   temperatureInput,
+  temperatureText,
+  temperatureValue,
   termsPerDecadeInput,
   timeInput,
+  valueIn,
   type DatasheetInputs,
   type HdtPoint,
   type MaterialInput,
   type MaterialParams,
   type ModulusDatum,
 } from '../src/index.js';
-import { csvTable, markdownTable, sig } from './format.js';
+import { csvTable, markdownTable } from './format.js';
 import { emit, json, material, materialInputFrom, maybe, need, opt, readText, str, type Command, type Values } from './command.js';
 import { checkWritable, writeTextFile } from './files.js';
 import { inventedDmaCsv, inventedRelaxationCsv } from './demodata.js';
@@ -154,7 +159,7 @@ function startParams(start: MaterialInput): MaterialParams | undefined {
   return isPronySpec(start) ? undefined : start;
 }
 
-const NUM = (x: number | null): string => (x === null ? '' : sig(x, 4));
+const NUM = (x: number | null): string => (x === null ? '' : significant(x, 4));
 
 export const CALIBRATION_COMMANDS: Record<string, Command> = {
   calibrate: {
@@ -231,8 +236,17 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         caution: CAUTION,
       };
       const written = writeOut(v, data);
-      const rows = r.residuals.map((x) => [x.input, NUM(x.given), NUM(x.reproduced), x.unit, x.tolerance, x.within ? 'yes' : 'NO', x.via]);
-      const freeRows = r.free.map((f) => [f.field, sig(f.start, 4), sig(f.value, 4), f.atBound ? 'at bound' : '']);
+      const value = (x: number | null, unit: string): string => (x === null ? 'not reached' : valueIn(x, unit));
+      const rows = r.residuals.map((x) => [
+        x.input,
+        value(x.given, x.unit),
+        value(x.reproduced, x.unit),
+        x.unit,
+        x.tolerance,
+        x.within ? 'yes' : 'NO',
+        x.via,
+      ]);
+      const freeRows = r.free.map((f) => [f.field, significant(f.start, 4), significant(f.value, 4), f.atBound ? 'at bound' : '']);
       const text =
         `Calibrated record '${r.params.id}' (quality ${r.quality}; ${r.iterations} iterations, ${r.reason})\n\n` +
         markdownTable(['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through'], rows) +
@@ -316,15 +330,15 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         return;
       }
       const shiftRows = fit.shifts.map((s) => [
-        sig(kelvinToC(s.temperatureK), 4),
+        temperatureValue(kelvinToC(s.temperatureK)),
         s.log10aT.toFixed(3),
         String(s.overlapPoints),
         s.rmsLog10.toFixed(3),
       ]);
       out.write(
-        `# Master curve at ${sig(kelvinToC(fit.referenceK), 4)} degC from ${set.curves.length} ${set.kind} curves (quality ${fit.quality})\n\n` +
+        `# Master curve at ${temperatureText(kelvinToC(fit.referenceK))} from ${set.curves.length} ${set.kind} curves (quality ${fit.quality})\n\n` +
           markdownTable(['temperature degC', 'log10 aT', 'overlap points', 'rms log10'], shiftRows) +
-          `\nShift law ${law.law}: C1 ${NUM(law.C1)}, C2 ${NUM(law.C2K)} K (reference ${sig(kelvinToC(fit.referenceK), 4)} degC)` +
+          `\nShift law ${law.law}: C1 ${NUM(law.C1)}, C2 ${NUM(law.C2K)} K (reference ${temperatureText(kelvinToC(fit.referenceK))})` +
           (law.EakJmol !== null ? `, Ea ${NUM(law.EakJmol)} kJ/mol below Tg` : '') +
           `; rms ${law.rmsLog10.toFixed(3)} decades (${law.quality})\n` +
           `Prony: ${fit.prony.terms.length} terms (${fit.termsPerDecade} per decade), rms ${fit.pronyRmsLog10.toFixed(4)} decades (${fit.pronyQuality})\n\n` +
@@ -370,7 +384,7 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         caution: CAUTION,
       };
       const written = writeOut(v, data);
-      const rows = r.free.map((x) => [x.field, sig(x.start, 4), sig(x.value, 4), x.atBound ? 'at bound' : '']);
+      const rows = r.free.map((x) => [x.field, significant(x.start, 4), significant(x.value, 4), x.atBound ? 'at bound' : '']);
       emit(
         out,
         v,
@@ -404,7 +418,7 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         out,
         v,
         data,
-        `${m.params.id}: creep modulus ${sig(Ec)} MPa (relaxation modulus ${sig(Er)} MPa at the same time and temperature)\n`,
+        `${m.params.id}: creep modulus ${modulusText(Ec)} (relaxation modulus ${modulusText(Er)} at the same time and temperature)\n`,
       );
     },
   },

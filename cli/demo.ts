@@ -2,7 +2,8 @@
  * The demo derating review printed to the terminal; the review itself is computed in review.ts, which
  * the workbook writer (workbook.ts) reads too.
  */
-import { markdownTable, sig } from './format.js';
+import { durationText, modulusText, mpaValue, ratioText, SECONDS_PER_HOUR, temperatureValue, VERDICT } from '../src/index.js';
+import { markdownTable } from './format.js';
 import type { Out } from './command.js';
 import { computeDemo, DEMO_CAUTION, type DemoReview } from './review.js';
 import { DEMO_SCENARIO as S } from './scenario.js';
@@ -14,31 +15,31 @@ export function printDemo(review: DemoReview, out: Out): void {
   out.write(
     markdownTable(
       ['resin', ...S.temperaturesC.map((t) => `${t} degC`)],
-      review.rows.map((r) => [r.id, ...r.cells.map((c) => `${sig(c.modulusMPa)} (${c.ratio === null ? '-' : c.ratio.toFixed(2)})`)]),
+      review.rows.map((r) => [r.id, ...r.cells.map((c) => `${mpaValue(c.modulusMPa)} (${c.ratio === null ? '-' : ratioText(c.ratio)})`)]),
     ),
   );
   out.write(
-    `\n## Daily cycle ${S.cycle.map(([T, h]) => `${h} h at ${T} degC`).join(' + ')}, ${S.cycles} days; required ${S.requiredModulusMPa} MPa\n\n`,
+    `\n## Daily cycle ${S.cycle.map(([T, h]) => `${h} h at ${T} degC`).join(' + ')}, ${S.cycles} days; required ${modulusText(S.requiredModulusMPa)}\n\n`,
   );
   out.write(
     markdownTable(
       [
         'resin',
-        `equivalent h at ${review.peakC} degC`,
+        `equivalent time at ${temperatureValue(review.peakC)} degC`,
         'modulus at end, MPa',
         'region',
         `stress held at ${S.heldStrain * 100} % strain, MPa`,
-        `max degC for ${S.requiredModulusMPa} MPa over ${S.serviceTime}`,
+        `max degC for ${modulusText(S.requiredModulusMPa)} over ${S.serviceTime}`,
         'verdict',
       ],
       review.checks.map((c) => [
         c.id,
-        sig(c.equivalentH, 3),
-        sig(c.afterMPa),
+        durationText(c.equivalentH * SECONDS_PER_HOUR),
+        mpaValue(c.afterMPa),
         c.region,
-        sig(c.heldStressMPa),
-        c.limitC === null ? (c.limitStatus === 'above-throughout' ? '> 500' : 'none') : sig(c.limitC, 3),
-        c.pass ? 'pass' : 'FAIL',
+        mpaValue(c.heldStressMPa),
+        c.limitC === null ? (c.limitStatus === 'above-throughout' ? 'above 500' : 'none') : temperatureValue(c.limitC),
+        c.pass ? VERDICT.pass : VERDICT.fail,
       ]),
     ),
   );

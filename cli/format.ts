@@ -1,13 +1,4 @@
-/** Text output helpers of the CLI: number formatting and markdown / CSV tables. */
-
-/** A number with 3 significant figures, plain notation where readable. */
-export function sig(x: number, digits = 3): string {
-  if (!Number.isFinite(x)) return String(x);
-  if (x === 0) return '0';
-  const a = Math.abs(x);
-  if (a >= 1e-3 && a < 1e6) return Number(x.toPrecision(digits)).toString();
-  return x.toExponential(digits - 1);
-}
+/** Text output helpers of the CLI: markdown and CSV tables. Numbers are written by src/base/display.ts. */
 
 /** A markdown table with a header row. */
 export function markdownTable(header: readonly string[], rows: readonly (readonly string[])[]): string {

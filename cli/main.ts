@@ -7,6 +7,7 @@ import {
   cyclesInput,
   retainedStressMPa,
   deratingTable,
+  durationText,
   equivalentTimeS,
   FAMILIES,
   familyInput,
@@ -17,23 +18,31 @@ import {
   listInput,
   pronyToRecord,
   pronyToTable,
+  ratioText,
   kelvinToC,
   maxTemperatureK,
   maxTimeS,
   modulusAfterHistory,
   modulusInput,
+  modulusRangeText,
+  modulusText,
+  mpaValue,
   paramsToRecord,
   resolveMaterial,
   segmentsInput,
   shiftLog10,
+  significant,
   simulateHdt,
   strainInput,
+  stressText,
   temperatureInput,
+  temperatureText,
+  temperatureValue,
   timeInput,
   type InverseAnswer,
   type Material,
 } from '../src/index.js';
-import { csvTable, markdownTable, sig } from './format.js';
+import { csvTable, markdownTable } from './format.js';
 import { runDemo } from './demo.js';
 import { DEMO_WORKBOOK_PATH, writeDemoWorkbook } from './workbook.js';
 import { CALIBRATION_COMMANDS } from './calibration.js';
@@ -130,7 +139,7 @@ const COMMANDS: Record<string, Command> = {
         temperature_C: kelvinToC(TK),
         time_s: tS,
       };
-      emit(out, v, data, `${m.params.id}: ${sig(b.centralMPa)} MPa (${b.region}; band ${sig(b.lowMPa)} to ${sig(b.highMPa)} MPa)\n`);
+      emit(out, v, data, `${m.params.id}: ${modulusText(b.centralMPa)} (${b.region}; band ${modulusRangeText(b.lowMPa, b.highMPa)})\n`);
     },
   },
   shift: {
@@ -142,7 +151,12 @@ const COMMANDS: Record<string, Command> = {
       const TK = checkTemperatureInDomain(m, need(v, 'temp', temperatureInput), '--temp');
       const log10aT = shiftLog10(m.shift, TK);
       const law = m.shift.law === 'hybrid' ? (TK < m.shift.TrefK ? 'arrhenius' : 'wlf') : m.shift.law;
-      emit(out, v, { log10_aT: log10aT, law }, `log10 aT = ${sig(log10aT, 4)} (${law}, reference Tg = ${m.params.Tg_C} degC)\n`);
+      emit(
+        out,
+        v,
+        { log10_aT: log10aT, law },
+        `log10 aT = ${significant(log10aT, 4)} (${law}, reference Tg = ${temperatureText(m.params.Tg_C)})\n`,
+      );
     },
   },
   maxtemp: {
@@ -155,7 +169,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = need(v, 'time', timeInput);
       const a = maxTemperatureK(m, req, tS);
       const T = a.value === null || a.status === 'below-between' ? null : kelvinToC(a.value);
-      const below = a.below?.map((K) => sig(kelvinToC(K), 4));
+      const below = a.below?.map((K) => temperatureValue(kelvinToC(K)));
       const note =
         a.status === 'below-between'
           ? `below the required modulus from ${below?.[0]} to ${below?.[1]} degC only (the network stiffens as it warms)`
@@ -164,7 +178,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { temperature_C: T, status: a.status, ...(T === null ? { not_reached: note } : {}) },
-        T === null ? `${note}\n` : `${sig(T, 4)} degC\n`,
+        T === null ? `${note}\n` : `${temperatureText(T)}\n`,
       );
     },
   },
@@ -187,7 +201,7 @@ const COMMANDS: Record<string, Command> = {
           status: a.status,
           ...(a.value === null ? { not_reached: note } : {}),
         },
-        a.value === null ? `${note}\n` : `${sig(a.value / 3600, 4)} h\n`,
+        a.value === null ? `${note}\n` : `${durationText(a.value)}\n`,
       );
     },
   },
@@ -201,7 +215,7 @@ const COMMANDS: Record<string, Command> = {
       const a = apparentTg(m, tS);
       const T = a.valueK === null ? null : kelvinToC(a.valueK);
       const outside = `outside the model's range (${a.status === 'above-range' ? 'above 500' : 'below -150'} degC)\n`;
-      emit(out, v, { temperature_C: T, status: a.status }, T === null ? outside : `${sig(T, 4)} degC\n`);
+      emit(out, v, { temperature_C: T, status: a.status }, T === null ? outside : `${temperatureText(T)}\n`);
     },
   },
   eqtime: {
@@ -231,7 +245,7 @@ const COMMANDS: Record<string, Command> = {
           modulus_MPa: after.modulusMPa,
           region: after.region,
         },
-        `${sig(teq / 3600, 4)} h at ${sig(refC, 4)} degC; modulus after the history ${sig(after.modulusMPa)} MPa (${after.region})\n`,
+        `${durationText(teq)} at ${temperatureText(refC)}; modulus after the history ${modulusText(after.modulusMPa)} (${after.region})\n`,
       );
     },
   },
@@ -250,7 +264,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { stress_MPa: r.stressMPa, modulus_MPa: r.modulusMPa, region: r.region, strain, beyond_linear_range: r.beyondLinearRange },
-        `${sig(r.stressMPa)} MPa retained (modulus ${sig(r.modulusMPa)} MPa, ${r.region})${warn}\n`,
+        `${stressText(r.stressMPa)} retained (modulus ${modulusText(r.modulusMPa)}, ${r.region})${warn}\n`,
       );
     },
   },
@@ -270,7 +284,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { temperature_C: r.temperatureC, status: r.status },
-        r.temperatureC === null ? none : `${sig(r.temperatureC, 4)} degC\n`,
+        r.temperatureC === null ? none : `${temperatureText(r.temperatureC)}\n`,
       );
     },
   },
@@ -296,13 +310,23 @@ const COMMANDS: Record<string, Command> = {
         out.write(JSON.stringify({ time_s: tS, reference: { temperature_C: 23, time_s: 3600 }, rows: data }, null, 2) + '\n');
         return;
       }
-      const header = ['family', ...temps.map((t) => `${sig(t, 4)} degC MPa`), ...temps.map((t) => `ratio ${sig(t, 4)}`)];
-      const body = rows.map((r) => [
+      const header = [
+        'family',
+        ...temps.map((t) => `${temperatureValue(t)} degC MPa`),
+        ...temps.map((t) => `ratio ${temperatureValue(t)}`),
+      ];
+      // CSV is read by spreadsheets, so its cells stay numbers (4 significant figures); markdown is read by people.
+      const csvBody = rows.map((r) => [
         r.id,
-        ...r.cells.map((c) => sig(c.modulusMPa)),
-        ...r.cells.map((c) => (c.ratio === null ? '-' : c.ratio.toFixed(2))),
+        ...r.cells.map((c) => significant(c.modulusMPa, 4)),
+        ...r.cells.map((c) => (c.ratio === null ? '' : significant(c.ratio, 4))),
       ]);
-      out.write(format === 'csv' ? csvTable(header, body) : markdownTable(header, body) + `\n${CAUTION}\n`);
+      const mdBody = rows.map((r) => [
+        r.id,
+        ...r.cells.map((c) => mpaValue(c.modulusMPa)),
+        ...r.cells.map((c) => (c.ratio === null ? '-' : ratioText(c.ratio))),
+      ]);
+      out.write(format === 'csv' ? csvTable(header, csvBody) : markdownTable(header, mdBody) + `\n${CAUTION}\n`);
     },
   },
   ...CALIBRATION_COMMANDS,

@@ -1,6 +1,7 @@
 /** Public engine API: pure TypeScript, no Office, DOM or Node-only imports. */
 export * from './base/errors.js';
 export * from './base/units.js';
+export * from './base/display.js';
 export * from './material/shift.js';
 export * from './material/params.js';
 export * from './material/model.js';

@@ -9,7 +9,7 @@ import { DetailedCellError } from 'hyperformula';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { printDemo } from '../cli/demo.js';
 import { computeDemo, type DemoReview } from '../cli/review.js';
-import { sig } from '../cli/format.js';
+import { durationText, mpaValue, VERDICT } from '../src/index.js';
 import { DEMO_SCENARIO } from '../cli/scenario.js';
 import { REVIEW_SHEET, writeDemoWorkbook } from '../cli/workbook.js';
 import { derateWorkbook } from '../functions/host/hyperformula.js';
@@ -124,8 +124,10 @@ describe('demo workbook', () => {
     expect(duty.length).toBe(review.checks.length);
     review.checks.forEach((check, i) => {
       expect(duty[i]?.result, check.id).toBe(check.afterMPa);
-      const line = printed.split('\n').find((l) => l.startsWith(`| ${check.id} `) && l.includes(check.pass ? 'pass' : 'FAIL'));
-      expect(line, `${check.id} in the printed duty-cycle table`).toContain(` ${sig(check.afterMPa)} `);
+      // The terminal and the pane share the verdict words (src/answers/verdict.ts) and the display rules (src/base/display.ts).
+      const line = printed.split('\n').find((l) => l.startsWith(`| ${check.id} `) && l.includes(check.pass ? VERDICT.pass : VERDICT.fail));
+      expect(line, `${check.id} in the printed duty-cycle table`).toContain(` ${mpaValue(check.afterMPa)} `);
+      expect(line, `${check.id}: equivalent time in the unit that fits`).toContain(` ${durationText(check.equivalentH * 3600)} `);
     });
   });
 

@@ -21,6 +21,7 @@ import { fieldSpec } from '../material/params.js';
 import type { Curve, CurveSet } from './testdata.js';
 import { fitShiftLaw, type CurveShift, type ShiftLawFit } from './shiftlaw.js';
 import { KELVIN_OFFSET } from '../base/units.js';
+import { temperatureValue } from '../base/display.js';
 
 /** Step of the coarse scan of log10 a_T, decades. */
 export const SHIFT_SCAN_STEP = 0.02;
@@ -68,7 +69,7 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   if (inRange < need) {
     throw new InputError(
       'data',
-      `the curves at ${(cur.temperatureK - KELVIN_OFFSET).toFixed(2)} and ${(ref.temperatureK - KELVIN_OFFSET).toFixed(2)} degC cannot be overlapped: only ${inRange} points of the first lie in the modulus range of the second (${need} needed); add a curve between them or extend the times`,
+      `the curves at ${temperatureValue(cur.temperatureK - KELVIN_OFFSET)} and ${temperatureValue(ref.temperatureK - KELVIN_OFFSET)} degC cannot be overlapped: only ${inRange} points of the first lie in the modulus range of the second (${need} needed); add a curve between them or extend the times`,
     );
   }
   const objective = (s: number): { f: number; n: number } => {
@@ -97,7 +98,7 @@ function pairShift(cur: Curve, ref: Curve): { s: number; overlap: number; rms: n
   if (!Number.isFinite(bestF)) {
     throw new InputError(
       'data',
-      `the curves at ${(cur.temperatureK - KELVIN_OFFSET).toFixed(2)} and ${(ref.temperatureK - KELVIN_OFFSET).toFixed(2)} degC cannot be overlapped on ${need} points or more in log-log; they need a common range of modulus (add a curve between them or extend the times)`,
+      `the curves at ${temperatureValue(cur.temperatureK - KELVIN_OFFSET)} and ${temperatureValue(ref.temperatureK - KELVIN_OFFSET)} degC cannot be overlapped on ${need} points or more in log-log; they need a common range of modulus (add a curve between them or extend the times)`,
     );
   }
   // Golden-section refinement in [best - step, best + step].
@@ -143,7 +144,7 @@ export function shiftCurves(set: CurveSet, referenceK?: number, TgK: number | nu
     if (Math.abs((curves[i]?.temperatureK ?? 0) - (curves[i - 1]?.temperatureK ?? 0)) < 1e-6) {
       throw new InputError(
         'data',
-        `two curves have the same temperature ${((curves[i]?.temperatureK ?? 0) - KELVIN_OFFSET).toFixed(2)} degC`,
+        `two curves have the same temperature ${temperatureValue((curves[i]?.temperatureK ?? 0) - KELVIN_OFFSET)} degC`,
       );
     }
   }
@@ -155,7 +156,7 @@ export function shiftCurves(set: CurveSet, referenceK?: number, TgK: number | nu
     if (refIndex < 0) {
       throw new InputError(
         'reference',
-        `${(referenceK - KELVIN_OFFSET).toFixed(2)} degC is not one of the curve temperatures (${curves.map((c) => (c.temperatureK - KELVIN_OFFSET).toFixed(1)).join(', ')} degC)`,
+        `${temperatureValue(referenceK - KELVIN_OFFSET)} degC is not one of the curve temperatures (${curves.map((c) => temperatureValue(c.temperatureK - KELVIN_OFFSET)).join(', ')} degC)`,
       );
     }
   }

@@ -15,6 +15,7 @@
  */
 import { InputError } from '../base/errors.js';
 import { bareDecimal, MODEL_TEMPERATURE_K, parseStressMPa, parseTemperatureK, parseTimeS, unitFor } from '../base/units.js';
+import { temperatureValue } from '../base/display.js';
 
 export type CurveKind = 'relaxation' | 'creep';
 
@@ -266,7 +267,7 @@ export function readCurveTable(rows: readonly (readonly unknown[])[]): CurveSet 
       if (earlier) {
         throw new InputError(
           'data',
-          `row ${row}: the curve at ${(T - 273.15).toFixed(2)} degC started at row ${earlier.rows[0]} and was interrupted; keep each curve's rows together`,
+          `row ${row}: the curve at ${temperatureValue(T - 273.15)} degC started at row ${earlier.rows[0]} and was interrupted; keep each curve's rows together`,
         );
       }
       groups.push({ T, t: [t], E: [E], rows: [row] });
@@ -278,7 +279,7 @@ export function readCurveTable(rows: readonly (readonly unknown[])[]): CurveSet 
 }
 
 function checkCurve(g: { T: number; t: number[]; E: number[]; rows: number[] }, kind: CurveKind): Curve {
-  const label = `the curve at ${(g.T - 273.15).toFixed(2)} degC (rows ${g.rows[0]}-${g.rows[g.rows.length - 1]})`;
+  const label = `the curve at ${temperatureValue(g.T - 273.15)} degC (rows ${g.rows[0]}-${g.rows[g.rows.length - 1]})`;
   if (g.t.length < MIN_POINTS_PER_CURVE) {
     throw new InputError('data', `${label} has ${g.t.length} points; a curve needs at least ${MIN_POINTS_PER_CURVE}`);
   }
@@ -334,7 +335,7 @@ export function readDmaTable(rows: readonly (readonly unknown[])[]): DmaSweep {
     if (prev !== undefined && !(t > prev)) {
       throw new InputError(
         'data',
-        `row ${row}: temperatures must increase down the sweep (${(t - 273.15).toFixed(2)} degC follows ${(prev - 273.15).toFixed(2)} degC)`,
+        `row ${row}: temperatures must increase down the sweep (${temperatureValue(t - 273.15)} degC follows ${temperatureValue(prev - 273.15)} degC)`,
       );
     }
     T.push(t);

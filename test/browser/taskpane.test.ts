@@ -25,6 +25,7 @@ import { readCalibration, type CalibrationFields } from '../../addin/jobs/calibr
 import { calibrationLayout, runCalibration } from '../../addin/jobs/calibrate/plan.js';
 import { blockRows, paramsBlockRows } from '../../addin/jobs/lookup/plan.js';
 import { MAXTEMP } from '../../functions/limits.js';
+import { mpaValue, valueIn } from '../../src/base/display.js';
 import { expectClose } from '../expect.js';
 
 let preview: Preview;
@@ -153,6 +154,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
       ['PP (Sheet1!D1:G33)', 'Sheet1!$D$1:$G$33', compileMaterial(getFamily('PP').params)],
     ];
     const t = parseTimeS('1000 h');
+    const lowestShown: string[] = [];
     for (const [i, [label, ref, m]] of materials.entries()) {
       const r = header + 1 + i;
       expect(await cell(S, r, 0)).toMatchObject({ value: label });
@@ -171,6 +173,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
       const verdict = await cell(S, r, 7);
       expect(verdict?.formula).toBe(`=IF(G${r + 1}>=$B$2,"pass","fail")`);
       expect(verdict?.value).toBe(Math.min(...moduli) >= 800 ? 'pass' : 'fail');
+      lowestShown.push(mpaValue(Math.min(...moduli)));
     }
     expect(await cell(S, 9, 0)).toMatchObject({ value: 'Required, MPa' });
     expect((await cell(S, 9, 1))?.formula).toBe('=$B$2');
@@ -181,6 +184,9 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     expect(texts.join(' ')).toMatch(/screening and comparison only.*ISO 899, ASTM D2990.*licensed engineering review/);
     // The pane's own summary shows the same verdicts.
     await expect(page.locator('#review-summary tbody tr').allTextContents()).resolves.toHaveLength(3);
+    // ... with its numbers written by the engine's display rules (src/base/display.ts), as the CLI's text.
+    await expect(page.textContent('#review-summary h3')).resolves.toBe('Lowest E_r against 800 MPa required');
+    await expect(page.locator('#review-summary tbody td.num').allTextContents()).resolves.toEqual(lowestShown);
   });
 
   it("draws each candidate's modelled curve densely, the service points, each MAXTEMP on the required line, and the required line in the legend", async () => {
@@ -384,8 +390,8 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     expect(rows.map((r) => r[0]?.replace(/ ±.*$/, ''))).toEqual(calibration.residuals.map((x) => x.input));
     for (const [i, x] of calibration.residuals.entries()) {
       const [, given, reproduced, within] = rows[i] ?? [];
-      expect(given?.trim()).toBe(`${Number(x.given.toPrecision(4))} ${x.unit}`);
-      expect(reproduced?.trim()).toBe(`${Number((x.reproduced ?? NaN).toPrecision(4))} ${x.unit}`);
+      expect(given?.trim()).toBe(`${valueIn(x.given, x.unit)} ${x.unit}`);
+      expect(reproduced?.trim()).toBe(`${valueIn(x.reproduced ?? NaN, x.unit)} ${x.unit}`);
       expect(within?.trim()).toBe(x.within ? 'yes' : 'no');
     }
     // HDT/B was typed in degF and is shown in degC.

@@ -3,6 +3,7 @@
  * has), the result (quality, datasheet check, parameters fitted, notes) and writing the calibrated block.
  * Reading the form is request.ts; the fit and the block (plan.ts) are fetched as their own chunk on first use.
  */
+import { significant, valueIn } from '../../../src/base/display.js';
 import type { CalibrationResult } from '../../../src/fit/calibrate.js';
 import { FAMILIES, getFamily } from '../../../src/material/families.js';
 import { qualified } from '../../sheet/a1.js';
@@ -172,7 +173,7 @@ function calibrationFields(): CalibrationFields {
 /** A value for the check table: the number, then its unit (which may wrap onto the next line). */
 function num(x: number | null, unit: string): (string | HTMLElement)[] {
   if (x === null) return ['not reached'];
-  return [`${Number(x.toPrecision(4))} `, h('span', { class: 'unit' }, unit)];
+  return [`${valueIn(x, unit)} `, h('span', { class: 'unit' }, unit)];
 }
 
 function renderCalibration(r: CalibrationResult): void {
@@ -203,7 +204,7 @@ function renderCalibration(r: CalibrationResult): void {
               h(
                 'li',
                 {},
-                `${f.field}: ${Number(f.start.toPrecision(4))} to ${Number(f.value.toPrecision(4))}${f.atBound ? ' (on its search bound)' : ''}`,
+                `${f.field}: ${significant(f.start, 4)} to ${significant(f.value, 4)}${f.atBound ? ' (on its search bound)' : ''}`,
               ),
             ),
           ),

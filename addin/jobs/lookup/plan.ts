@@ -1,5 +1,6 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
 import { BLOCK_HEADER, paramsBlock } from '../../../functions/core/block.js';
+import { valueIn } from '../../../src/base/display.js';
 import { FAMILIES, type Family } from '../../../src/material/families.js';
 import type { MaterialParams, NumericField } from '../../../src/material/params.js';
 import type { Cell } from '../../sheet/a1.js';
@@ -27,8 +28,8 @@ function quantity(f: Family, label: string, key: NumericField, low: NumericField
   if (v === null) return { label, text: '-', source: 'not used for this kind' };
   const lo = p[low];
   const hi = p[high];
-  const range = lo !== null && hi !== null && (lo !== v || hi !== v) ? ` (${lo} to ${hi})` : '';
-  return { label, text: `${v} ${unit}${range}`, source: f.sources[key] ?? 'no source recorded' };
+  const range = lo !== null && hi !== null && (lo !== v || hi !== v) ? ` (${valueIn(lo, unit)} to ${valueIn(hi, unit)})` : '';
+  return { label, text: `${valueIn(v, unit)} ${unit}${range}`, source: f.sources[key] ?? 'no source recorded' };
 }
 
 export function summarize(f: Family): FamilySummary {

@@ -4,10 +4,10 @@
  * summary of lowest moduli and verdicts. What it writes is plan.ts.
  */
 import { InputError } from '../../../src/base/errors.js';
+import { modulusText, mpaValue } from '../../../src/base/display.js';
 import { FAMILIES } from '../../../src/material/families.js';
 import { VERDICT } from '../../../src/answers/verdict.js';
 import { qualified, type Box } from '../../sheet/a1.js';
-import { formatModulus } from '../../sheet/port.js';
 import { byId, h } from '../../shell/dom.js';
 import { clearMessage, say } from '../../shell/messages.js';
 import type { Shell } from '../../shell/shell.js';
@@ -288,7 +288,7 @@ function showLoad(): void {
 function renderSummary(input: ReviewInput): void {
   const results = reviewResults(input);
   byId('review-summary').replaceChildren(
-    h('h3', {}, `Lowest E_r against ${formatModulus(input.requiredMPa)} MPa required`),
+    h('h3', {}, `Lowest E_r against ${modulusText(input.requiredMPa)} required`),
     h(
       'table',
       { class: 'summary' },
@@ -305,7 +305,7 @@ function renderSummary(input: ReviewInput): void {
             'tr',
             {},
             h('th', { scope: 'row' }, r.label),
-            h('td', { class: 'num' }, formatModulus(r.lowestMPa)),
+            h('td', { class: 'num' }, mpaValue(r.lowestMPa)),
             h('td', { class: r.pass ? 'pass' : 'fail' }, r.pass ? VERDICT.pass : VERDICT.fail),
           ),
         ),
