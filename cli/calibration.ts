@@ -1,7 +1,8 @@
 /**
  * CLI commands for calibration and the user's own test data: calibrate (datasheet points), fit
  * (relaxation or creep curves -> master curve, shift law, Prony table), dmafit (DMA sweep -> parameters)
- * and creepmod (apparent creep modulus). Registered into the command table of main.ts.
+ * and creepmod (apparent creep modulus). Registered into the command table of main.ts. Over 400 lines
+ * because it is the command table of these four commands, each entry short.
  */
 import {
   atItem,

@@ -1,4 +1,7 @@
-/** The `resin-derate` command line: the engine's answers as text tables or JSON. */
+/**
+ * The `resin-derate` command line: the engine's answers as text tables or JSON. Over 400 lines because it
+ * is the command table: one entry per command (options, usage, run), each short.
+ */
 import {
   apparentTg,
   bandEstimate,

@@ -10,6 +10,9 @@
  * already freed. The free parameters are then fitted by bounded least squares (lsq.ts) on residuals
  * scaled by each input's tolerance. Inputs that cannot determine the parameters asked for are refused
  * with a message naming them.
+ *
+ * Over 400 lines because the calibration is one algorithm (inputs, free-parameter choice, rounds of least
+ * squares, the check of what moved): its steps share private state and read best in order.
  */
 import { InputError, ParameterError } from '../base/errors.js';
 import { creepModulusMPa } from '../answers/creep.js';

@@ -7,6 +7,8 @@ import { InputError } from '../../../src/base/errors.js';
 import { modulusText, mpaValue } from '../../../src/base/display.js';
 import { FAMILIES } from '../../../src/material/families.js';
 import { VERDICT } from '../../../src/answers/verdict.js';
+import { cyclesInput } from '../../../src/input/count.js';
+import { readRequired } from '../../../src/input/quantity.js';
 import { qualified, type Box } from '../../sheet/a1.js';
 import { byId, h } from '../../shell/dom.js';
 import { clearMessage, say } from '../../shell/messages.js';
@@ -236,8 +238,8 @@ class ReviewPane {
     let load: Load;
     if (byId<HTMLInputElement>('load-cycle-radio').checked) {
       const cyclesText = byId<HTMLInputElement>('cycles').value.trim();
-      const cycles = Number(cyclesText);
-      if (cyclesText === '' || !Number.isFinite(cycles)) throw new InputError('cycles', `must be a number, got '${cyclesText}'`);
+      // The same quantity as DUTY's and EQTIME's cycles argument and the CLI's --cycles (src/input/count.ts).
+      const cycles = readRequired(cyclesInput, cyclesText, 'cycles');
       checkCycle(this.steps, cycles);
       load = { kind: 'cycle', steps: [...this.steps], cycles };
     } else {
