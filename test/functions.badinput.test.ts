@@ -149,7 +149,12 @@ const BY_KIND: Record<ArgKind, readonly Bad[]> = {
     { value: 5000, code: '#VALUE!', says: 'whole number' },
     SCALAR_RANGE,
   ],
-  cycles: [{ value: 0, code: '#VALUE!', says: 'greater than zero' }, { value: 'many', code: '#VALUE!', says: 'many' }, SCALAR_RANGE],
+  cycles: [
+    { value: 0, code: '#VALUE!', says: 'from 1 to' },
+    { value: 0.5, code: '#VALUE!', says: 'from 1 to' },
+    { value: 'many', code: '#VALUE!', says: 'many' },
+    SCALAR_RANGE,
+  ],
   curves: [
     { value: 'hot', code: '#VALUE!', says: 'curve table' },
     { value: SCALAR_RANGE.value, code: '#VALUE!', says: 'not a known column' },

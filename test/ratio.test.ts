@@ -48,10 +48,10 @@ describe('RATIO to a reference that has relaxed to nothing', () => {
   });
   it('names ref_time when the reference temperature is fine at 1 ms and only the time relaxes it', () => {
     const m = resolveMaterial('PC');
-    // PC at 200 degC: solid at 1 ms (glassy), a melt after a day (WLF with the universal constants, Tg 147 degC).
-    expect(modulusMPa(m, 1e-3, 200 + C)).toBeGreaterThan(RELAXED_MPA);
-    expect(modulusMPa(m, 24 * H, 200 + C)).toBeLessThan(RELAXED_MPA);
-    expect(argumentOf(() => deratingRatio(m, H, 23 + C, 200 + C, 24 * H))).toBe('ref_time');
+    // PC at 170 degC: still rubbery at 1 ms, a melt after a day (WLF with the universal constants, Tg 147 degC).
+    expect(modulusMPa(m, 1e-3, 170 + C)).toBeGreaterThan(RELAXED_MPA);
+    expect(modulusMPa(m, 24 * H, 170 + C)).toBeLessThan(RELAXED_MPA);
+    expect(argumentOf(() => deratingRatio(m, H, 23 + C, 170 + C, 24 * H))).toBe('ref_time');
   });
   it('a solid reference gives the plain quotient (definition of the ratio)', () => {
     const m = resolveMaterial('PA66-cond');

@@ -38,19 +38,21 @@ export const termsPerDecadeInput: Quantity<number> = /* @__PURE__ */ wholeNumber
 
 /** Upper bound of a cycle count: 100 years of one cycle a day is 36 525; set here with a wide margin. */
 export const CYCLES_MAX = 1e7;
+/** Fewest repeats of a duty cycle: one whole cycle (the engine's histories refuse fewer; src/answers/history.ts). */
+export const CYCLES_MIN = 1;
 
-const CYCLES_WHAT = `a number of repeats greater than zero, up to ${CYCLES_MAX}`;
+const CYCLES_WHAT = `a number of repeats from ${CYCLES_MIN} to ${CYCLES_MAX}`;
 
-/** How many times a duty cycle repeats: greater than zero (fractions allowed: a part of the last cycle), up to CYCLES_MAX. */
+/** How many times a duty cycle repeats: CYCLES_MIN to CYCLES_MAX (fractions above one allowed: a part of the last cycle). */
 export const cyclesInput: Quantity<number> = {
   what: CYCLES_WHAT,
   unit: 'count',
-  min: 0,
+  min: CYCLES_MIN,
   max: CYCLES_MAX,
   parse(input, name) {
     const raw = trimmed(input);
     const n = numberOf(raw, name, CYCLES_WHAT);
-    if (n <= 0 || n > CYCLES_MAX) throw new InputError(name, `expects ${CYCLES_WHAT}, got ${showRaw(raw)}`);
+    if (!(n >= CYCLES_MIN) || n > CYCLES_MAX) throw new InputError(name, `expects ${CYCLES_WHAT}, got ${showRaw(raw)}`);
     return n;
   },
 };
