@@ -76,6 +76,11 @@ const MODULUS_POINT = 'TIME@TEMPERATURE:MODULUS items such as "1000 h@23 degC:19
 
 const FIELD_NAMES: readonly string[] = NUMERIC_FIELDS.map((f) => f.key);
 
+/** Table rows of fitted parameters (calibrate, dmafit): field, start, fitted value, and whether it ended on a bound. */
+function fittedRows(free: readonly { field: string; start: number; value: number; atBound: boolean }[]): string[][] {
+  return free.map((f) => [f.field, significant(f.start, 4), significant(f.value, 4), f.atBound ? 'at bound' : '']);
+}
+
 /** --free: parameter names, each checked here so that a typo reads as one rather than as a fitting problem. */
 function freeFields(text: string | undefined): NumericField[] | undefined {
   const names = list(text);
@@ -247,7 +252,7 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         x.within ? 'yes' : 'NO',
         x.via,
       ]);
-      const freeRows = r.free.map((f) => [f.field, significant(f.start, 4), significant(f.value, 4), f.atBound ? 'at bound' : '']);
+      const freeRows = fittedRows(r.free);
       const text =
         `Calibrated record '${r.params.id}' (quality ${r.quality}; ${r.iterations} iterations, ${r.reason})\n\n` +
         markdownTable(['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through'], rows) +
@@ -385,7 +390,7 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         caution: CAUTION,
       };
       const written = writeOut(v, data);
-      const rows = r.free.map((x) => [x.field, significant(x.start, 4), significant(x.value, 4), x.atBound ? 'at bound' : '']);
+      const rows = fittedRows(r.free);
       emit(
         out,
         v,

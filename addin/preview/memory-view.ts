@@ -58,18 +58,23 @@ export class MemoryView {
     byId('grid').focus();
   }
 
+  /** Selects the box spanned by the anchor cell and (row, col), as a shift-click or shift-arrow does. */
+  private selectFromAnchor(row: number, col: number): void {
+    this.wb.select(this.wb.activeSheet, {
+      top: Math.min(this.anchor.row, row),
+      left: Math.min(this.anchor.col, col),
+      bottom: Math.max(this.anchor.row, row),
+      right: Math.max(this.anchor.col, col),
+    });
+  }
+
   private move(dr: number, dc: number, extend: boolean): void {
     const b = this.box;
     if (extend) {
       const far = { row: b.top === this.anchor.row ? b.bottom : b.top, col: b.left === this.anchor.col ? b.right : b.left };
       const row = Math.max(0, far.row + dr);
       const col = Math.max(0, far.col + dc);
-      this.wb.select(this.wb.activeSheet, {
-        top: Math.min(this.anchor.row, row),
-        left: Math.min(this.anchor.col, col),
-        bottom: Math.max(this.anchor.row, row),
-        right: Math.max(this.anchor.col, col),
-      });
+      this.selectFromAnchor(row, col);
     } else {
       const row = Math.max(0, b.top + dr);
       const col = Math.max(0, b.left + dc);
@@ -105,12 +110,7 @@ export class MemoryView {
     const row = Number(td.dataset.row);
     const col = Number(td.dataset.col);
     if (e.shiftKey) {
-      this.wb.select(this.wb.activeSheet, {
-        top: Math.min(this.anchor.row, row),
-        left: Math.min(this.anchor.col, col),
-        bottom: Math.max(this.anchor.row, row),
-        right: Math.max(this.anchor.col, col),
-      });
+      this.selectFromAnchor(row, col);
     } else {
       this.anchor = { row, col };
       this.wb.select(this.wb.activeSheet, { top: row, left: col, bottom: row, right: col });

@@ -1,4 +1,7 @@
 /**
+ * Kept whole at about 600 lines: the calibration is one algorithm (inputs, choice of free parameters, rounds of
+ * least squares, the check of what moved) whose steps share private state and read best in order.
+ *
  * Datasheet calibration: from a few datasheet numbers (short-term modulus at 23 degC, HDT at one or
  * more ISO 75 stresses, Tg, Tm, creep or relaxation moduli at a time and temperature) and a starting
  * family or parameter record, a parameter record that reproduces them, with the reproduction of every
@@ -10,9 +13,6 @@
  * already freed. The free parameters are then fitted by bounded least squares (lsq.ts) on residuals
  * scaled by each input's tolerance. Inputs that cannot determine the parameters asked for are refused
  * with a message naming them.
- *
- * Over 400 lines because the calibration is one algorithm (inputs, free-parameter choice, rounds of least
- * squares, the check of what moved): its steps share private state and read best in order.
  */
 import { InputError, ParameterError } from '../base/errors.js';
 import { creepModulusMPa } from '../answers/creep.js';

@@ -1,10 +1,9 @@
 /**
+ * Kept whole at about 600 lines: it is a data table, and splitting it would separate numbers from their sources.
+ *
  * The bundled polymer families, keyed by ISO 1043-1 symbols (elastomers by ISO 1629). Every number
  * carries its source: a handbook, "common practice", "from memory", or "set here" (an estimate made
  * in this project, with how it was made). Values are for unfilled, general-purpose grades.
- *
- * Over 400 lines because it is a data table: one entry per bundled family with the source of every number
- * beside it; splitting it would separate numbers from their sources.
  */
 import { UnknownFamilyError } from '../base/errors.js';
 import type { Kind, MaterialParams, NumericField } from './params.js';
