@@ -7,12 +7,14 @@
 import {
   atItem,
   calibrateDatasheet,
+  calibrationFittedRows,
   checkHdtOrder,
   checkMelting,
   checkTemperatureInDomain,
   creepModulusMPa,
   fitCurves,
   fitDma,
+  FITTED_HEADER,
   frequencyInput,
   getFamily,
   glassTransitionInput,
@@ -76,7 +78,7 @@ const MODULUS_POINT = 'TIME@TEMPERATURE:MODULUS items such as "1000 h@23 degC:19
 
 const FIELD_NAMES: readonly string[] = NUMERIC_FIELDS.map((f) => f.key);
 
-/** Table rows of fitted parameters (calibrate, dmafit): field, start, fitted value, and whether it ended on a bound. */
+/** Table rows of fitted parameters (dmafit): field, start, fitted value, and whether it ended on a bound. */
 function fittedRows(free: readonly { field: string; start: number; value: number; atBound: boolean }[]): string[][] {
   return free.map((f) => [f.field, significant(f.start, 4), significant(f.value, 4), f.atBound ? 'at bound' : '']);
 }
@@ -233,6 +235,7 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       const data = {
         params: paramsToRecord(r.params),
         free: r.free,
+        family: r.family,
         residuals: r.residuals,
         iterations: r.iterations,
         converged: r.converged,
@@ -252,11 +255,14 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
         x.within ? 'yes' : 'NO',
         x.via,
       ]);
-      const freeRows = fittedRows(r.free);
+      const freeRows = calibrationFittedRows(r).map((row) => row.map((c) => (typeof c === 'number' ? significant(c, 4) : (c ?? ''))));
       const text =
         `Calibrated record '${r.params.id}' (quality ${r.quality}; ${r.iterations} iterations, ${r.reason})\n\n` +
         markdownTable(['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through'], rows) +
-        (freeRows.length > 0 ? '\n' + markdownTable(['fitted parameter', 'start', 'calibrated', ''], freeRows) : '') +
+        (freeRows.length > 0
+          ? `\n${r.family === null ? 'Not a bundled family: no defaults to compare.\n' : `Family ${r.family} beside the fitted values:\n`}` +
+            markdownTable([...FITTED_HEADER], freeRows)
+          : '') +
         r.notes.map((n) => `\nnote: ${n}`).join('') +
         `\n\n${written}${CAUTION}\n`;
       emit(out, v, data, text);

@@ -7,7 +7,9 @@
 import {
   calibrateDatasheet,
   calibrationCheckRows,
+  calibrationFittedRows,
   checkHdtOrder,
+  FITTED_HEADER,
   checkMelting,
   HDT_METHODS,
   InputError,
@@ -116,7 +118,8 @@ function runCalibration(...[p, m23, hdtA, hdtB, tg, tm, creepT, creepK, creepE, 
   return r;
 }
 
-const QUALITY_RULE = 'good: every input within its tolerance; fair: within three tolerances; poor: otherwise, or not converged';
+const QUALITY_RULE =
+  'good: every input within its tolerance; fair: within three tolerances, or the long-term answers moved more than the inputs justify; poor: otherwise, or not converged';
 
 function how(r: CalibrationResult): string {
   const within = r.residuals.filter((x) => x.within).length;
@@ -163,24 +166,28 @@ export function calibrate(
   return CALIBRATE.invoke(start, modulus23, hdt_a, hdt_b, tg, tm, creep_time, creep_temp, creep_modulus, free);
 }
 
-/** Inputs a calibration can have (modulus, two HDTs, Tg, Tm, one creep modulus), header and four summary rows. */
-const CHECK_ROWS = 1 + 6 + 4;
+/** Inputs a calibration can have (modulus, two HDTs, Tg, Tm, one creep modulus) under their header. */
+const CHECK_INPUT_ROWS = 1 + 6;
+/** Fitted parameters under their header: at most one per fitted input (an Eg-anchored modulus, two HDTs, a creep modulus). */
+const CHECK_FITTED_ROWS = 1 + 4;
+/** Quality, notes and caution. */
+const CHECK_SUMMARY_ROWS = 3;
 
 export const CALCHECK = defineMatrix({
   id: 'CALCHECK',
   args: CALIBRATE_ARGS,
-  spillSize: () => [CHECK_ROWS, 7],
+  spillSize: () => [CHECK_INPUT_ROWS + CHECK_FITTED_ROWS + CHECK_SUMMARY_ROWS, FITTED_HEADER.length],
   spillFits: 'at-most',
   run: (...v) => {
     const r = runCalibration(...(v as unknown as Parsed));
-    const table: OutCell[][] = calibrationCheckRows(r).map((row) => row.map((c) => (typeof c === 'number' ? sig(c) : c)));
+    const cells = (row: readonly (string | number | null)[]): OutCell[] => row.map((c) => (typeof c === 'number' ? sig(c) : c));
+    const table: OutCell[][] = [...calibrationCheckRows(r).map(cells), [...FITTED_HEADER], ...calibrationFittedRows(r).map(cells)];
     const line = (label: string, text: string): OutCell[] => [label, text, null, null, null, null, null];
     table.push(
       line(
         'quality',
         `${QUALITY_MEANING[r.quality]} (${QUALITY_RULE}); ${r.iterations} iterations, ${r.converged ? 'converged' : `not converged (${r.reason})`}`,
       ),
-      line('fitted', freeText(r.free)),
       line('notes', notesText(r.notes)),
       line('caution', FIT_CAUTION),
     );
@@ -189,7 +196,7 @@ export const CALCHECK = defineMatrix({
 });
 
 /**
- * Spills how a calibration reproduces each datasheet number (given, reproduced, unit, tolerance, within, set through), with its quality, fitted parameters and notes. Screening estimate; same arguments as DERATE.CALIBRATE.
+ * Spills how a calibration reproduces each datasheet number, then each fitted parameter beside its family default and range, the quality and notes. Screening estimate; same arguments as DERATE.CALIBRATE.
  * @customfunction CALCHECK
  * @param start Starting point: family symbol such as "PC", or a parameter block range from DERATE.PARAMS.
  * @param [modulus23] Short-term (tensile) modulus at 23 degC, MPa (or text with a unit such as "2.4 GPa").
@@ -201,7 +208,7 @@ export const CALCHECK = defineMatrix({
  * @param [creep_temp] Temperature of the creep modulus, degC (or text with a unit); 23 degC if left empty.
  * @param [creep_modulus] Creep modulus (stress / creep strain) at creep_time and creep_temp, MPa (or text with a unit).
  * @param [free] Parameter names to fit instead of the automatic choice, such as "tauTg_s, beta" (or a range of names).
- * @returns {any[][]} Table: header, one row per input given (degC or MPa), then quality, fitted, notes and caution rows.
+ * @returns {any[][]} Table: header, one row per input given (degC or MPa); header, one row per fitted parameter (start, calibrated, family default, family low, family high, on search bound); then quality, notes and caution rows.
  */
 export function calcheck(
   start: unknown[][],

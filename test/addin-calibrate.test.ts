@@ -5,15 +5,17 @@ import {
   compileMaterial,
   creepModulusMPa,
   cToKelvin,
+  FITTED_HEADER,
   getFamily,
   InputError,
   modulusMPa,
   NUMERIC_FIELDS,
+  significant,
   simulateHdt,
   TEXT_FIELDS,
   type CalibrationResult,
 } from '../src/index.js';
-import { readCalibration, type CalibrationFields, type CalibrationRequest } from '../addin/jobs/calibrate/request.js';
+import { fittedText, readCalibration, type CalibrationFields, type CalibrationRequest } from '../addin/jobs/calibrate/request.js';
 import { calibratedBlockBox, calibrationLayout, calibrationPlan, runCalibration } from '../addin/jobs/calibrate/plan.js';
 import { paramsBlockRows } from '../addin/jobs/lookup/plan.js';
 import { MemoryWorkbook } from '../addin/sheet/memory-sheet.js';
@@ -164,8 +166,20 @@ describe('the calibrated block written', () => {
     expect(values.slice(L.checkHeaderRow, L.checkHeaderRow + check.length)).toEqual(check);
     expect(cells[L.checkHeaderRow + 1]?.[2]?.format).toBe('modulus');
     expect(L.fittedRow).not.toBeNull();
+    expect(values[L.fittedRow ?? 0]).toEqual([...FITTED_HEADER]);
     const fitted = values.slice((L.fittedRow ?? 0) + 1, (L.fittedRow ?? 0) + 1 + result.free.length);
     expect(fitted.map((r) => r.slice(0, 3))).toEqual(result.free.map((f) => [f.field, f.start, f.value]));
+    // Beside each, the PBT family's default (src/material/families.ts, its entry and KIND_DEFAULTS.semicrystalline).
+    const pbt = getFamily('PBT').params;
+    expect(fitted.map((r) => r[3])).toEqual(result.free.map((f) => pbt[f.field]));
+    expect(
+      fitted.map((r) =>
+        fittedText(
+          result.free.find((f) => f.field === r[0])!,
+          result.family,
+        ),
+      ),
+    ).toEqual(result.free.map((f) => expect.stringContaining(`family default ${significant(pbt[f.field] ?? NaN, 4)} (PBT)`)));
     const text = values
       .slice(L.cautionRow)
       .map((r) => r[0])

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import {
   calibrateDatasheet,
   calibrationCheckRows,
+  calibrationFittedRows,
   compileMaterial,
   creepModulusMPa,
   DATASHEET_TIME_S,
@@ -118,7 +119,16 @@ describe('datasheet calibration round trips', () => {
       source: 'the datasheet does not inform the long term: only the 23 degC scale (2300 / 2350) moves it',
     });
     for (const c of r.longTerm) expect(c.tooFar, c.answer).toBe(false);
-    expect(r.notes.join(' ')).toMatch(/fictiveExcess_K: family PC default 5, calibrated/);
+    // Beside each fitted value, the family's default (families.ts KIND_DEFAULTS.amorphous: 5 K set here; x 0.35, Hodge 1994, from memory).
+    expect(r.family).toBe('PC');
+    expect(r.free.map((f) => [f.field, f.familyDefault, f.familyLow, f.familyHigh])).toEqual([
+      ['fictiveExcess_K', 5, null, null],
+      ['tnmX', 0.35, null, null],
+    ]);
+    expect(calibrationFittedRows(r).map((x) => x.slice(3))).toEqual([
+      [5, null, null, 'no'],
+      [0.35, null, null, 'no'],
+    ]);
   });
   it('is at best fair, naming the answer and by how much, when it moves the long term more than the inputs justify', () => {
     const r = calibrateDatasheet('PC', { hdt: [{ stressMPa: 1.8, temperatureK: 115 + K }] }, { free: ['tauTg_s'] });

@@ -31,6 +31,32 @@ describe('resin-derate calibration commands', () => {
     expectClose(r.residuals[2]?.reproduced ?? NaN, 132, { abs: 0.05, source: 'input HDT/A as calibrated (typical PC, from memory)' });
     expect(r.params['id']).toBe('PC-cal');
   });
+  it('calibrate shows each fitted parameter beside the family default, in the text and in --json', () => {
+    // Typical PC datasheet (common practice, from memory): 2300 MPa, HDT/A 130, HDT/B 140, Tg 147 degC (issue 12, done when).
+    const args = ['calibrate', '--family', 'PC', '--modulus23', '2300', '--hdt-a', '130', '--hdt-b', '140', '--tg', '147'];
+    const r = run(...args, '--json') as {
+      family: string;
+      free: { field: string; start: number; value: number; familyDefault: number; familyLow: null; familyHigh: null }[];
+    };
+    expect(r.family).toBe('PC');
+    // families.ts KIND_DEFAULTS.amorphous: fictiveExcess_K 5 K (set here), tnmX 0.35 (Hodge, J. Non-Cryst. Solids 169 (1994) 211, from memory).
+    expect(r.free.map((f) => [f.field, f.familyDefault, f.familyLow, f.familyHigh])).toEqual([
+      ['fictiveExcess_K', 5, null, null],
+      ['tnmX', 0.35, null, null],
+    ]);
+    const text = execFileSync('node', [BIN, ...args], { encoding: 'utf8' });
+    expect(text).toMatch(
+      /\| fitted parameter +\| start +\| calibrated +\| family default +\| family low +\| family high +\| on search bound +\|/,
+    );
+    expect(text).toMatch(/\| tnmX +\| 0\.35 +\| [-0-9.]+ +\| 0\.35 +\| +\| +\| no +\|/);
+    // The calibrated record, used with --params, stays usable near 120 degC over 1000 h (common practice, from memory:
+    // unfilled PC carries load to about 115 to 125 degC; the issue measured an apparent Tg of 104 degC before).
+    const dir = mkdtempSync(join(tmpdir(), 'rd-'));
+    const file = join(dir, 'pc.json');
+    execFileSync('node', [BIN, ...args, '--out', file], { encoding: 'utf8' });
+    const tg = run('tgat', '--params', file, '--time', '1000 h', '--json') as { temperature_C: number };
+    expect(tg.temperature_C).toBeGreaterThan(120);
+  });
   it('writes a record that every command accepts with --params', () => {
     const dir = mkdtempSync(join(tmpdir(), 'rd-'));
     const file = join(dir, 'cal.json');

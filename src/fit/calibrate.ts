@@ -96,6 +96,11 @@ export interface FreeResult {
   readonly start: number;
   readonly value: number;
   readonly atBound: boolean;
+  /** The value of the bundled family the record comes from (null: not a bundled family's record). */
+  readonly familyDefault: number | null;
+  /** The family's typical range of this parameter, where the record carries one (Tg_C, Tm_C, E23_MPa); else null. */
+  readonly familyLow: number | null;
+  readonly familyHigh: number | null;
 }
 
 export type CalibrationQuality = 'good' | 'fair' | 'poor';
@@ -114,6 +119,8 @@ export interface CalibrationResult {
    */
   readonly quality: CalibrationQuality;
   readonly notes: readonly string[];
+  /** The bundled family whose defaults stand beside the fitted values (null: the start is not a family's record). */
+  readonly family: string | null;
   /** Long-term answers before and after (empty when a long-term modulus was an input or nothing was fitted). */
   readonly longTerm: readonly LongTermChange[];
 }
@@ -352,6 +359,7 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   let converged = true;
   let reason = 'exact';
   const freeResults: FreeResult[] = [];
+  const defaults = familyDefaults(p0);
   if (free.length > 0) {
     const fp: FreeParameter[] = free.map((f) => {
       const b = boundsOf(f.field, base);
@@ -363,7 +371,16 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
     iterations = r.iterations;
     converged = r.converged;
     reason = r.reason;
-    fp.forEach((p, i) => freeResults.push({ field: fields[i]!, start: p.start, value: r.values[i]!, atBound: r.atBound.includes(p.name) }));
+    fp.forEach((p, i) => {
+      const field = fields[i]!;
+      freeResults.push({
+        field,
+        start: p.start,
+        value: r.values[i]!,
+        atBound: r.atBound.includes(p.name),
+        ...familyColumns(defaults, field),
+      });
+    });
     for (const f of freeResults) {
       if (f.atBound) notes.push(`${f.field} ended on its search bound (${fmt(f.value)}); the inputs pull it further than the model allows`);
     }
@@ -407,11 +424,6 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   let quality: CalibrationQuality = worst <= 1 ? 'good' : worst <= 3 ? 'fair' : 'poor';
   if (!converged && quality !== 'good') quality = 'poor';
   if (!converged) notes.push(`the least-squares fit did not converge (${reason}); the record is the best point found`);
-  const defaults = familyDefaults(p0);
-  for (const f of freeResults) {
-    const d = defaults?.[f.field];
-    if (typeof d === 'number') notes.push(`${f.field}: family ${defaults?.id} default ${fmt(d)}, calibrated ${fmt(f.value)}`);
-  }
   // Long-term answers the inputs do not inform (no creep or relaxation datum at 100 h or more) must not move far.
   const informed = (inputs.moduli ?? []).some((d) => d.timeS >= LONG_TERM_S / 10);
   const longTerm = informed || freeResults.length === 0 ? [] : longTermChanges(base, fitted);
@@ -441,8 +453,23 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
     reason,
     quality,
     notes,
+    family: defaults?.id ?? null,
     longTerm,
   };
+}
+
+/** The fields whose family range the record carries, and the fields of that range. */
+const RANGE_OF: Partial<Record<NumericField, readonly [NumericField, NumericField]>> = {
+  Tg_C: ['Tg_low_C', 'Tg_high_C'],
+  Tm_C: ['Tm_low_C', 'Tm_high_C'],
+  E23_MPa: ['E23_low_MPa', 'E23_high_MPa'],
+};
+
+/** The family's default of a fitted field and its range where the family has one. */
+function familyColumns(family: MaterialParams | null, field: NumericField): Pick<FreeResult, 'familyDefault' | 'familyLow' | 'familyHigh'> {
+  const range = RANGE_OF[field];
+  const value = (f: NumericField | undefined): number | null => (family && f ? family[f] : null) ?? null;
+  return { familyDefault: value(field), familyLow: value(range?.[0]), familyHigh: value(range?.[1]) };
 }
 
 /** The bundled family a record comes from (its id, or its id before '-cal'), or null. */
@@ -595,4 +622,23 @@ export function calibrationCheckRows(r: CalibrationResult): (string | number)[][
     ['input', 'given', 'reproduced', 'unit', 'tolerance', 'within', 'set through'],
     ...r.residuals.map((x) => [x.input, x.given, x.reproduced ?? 'not reached', x.unit, x.tolerance, x.within ? 'yes' : 'no', x.via]),
   ];
+}
+
+/** Column heads of the fitted-parameter table, the same words in the worksheet, the CLI and the pane. */
+export const FITTED_HEADER = [
+  'fitted parameter',
+  'start',
+  'calibrated',
+  'family default',
+  'family low',
+  'family high',
+  'on search bound',
+] as const;
+
+/**
+ * The fitted parameters of a calibration as rows under FITTED_HEADER: the start value, the calibrated one,
+ * the bundled family's default and range beside them (null where there is none), whether it ended on a bound.
+ */
+export function calibrationFittedRows(r: CalibrationResult): (string | number | null)[][] {
+  return r.free.map((f) => [f.field, f.start, f.value, f.familyDefault, f.familyLow, f.familyHigh, f.atBound ? 'yes' : 'no']);
 }

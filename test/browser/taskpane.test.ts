@@ -21,7 +21,7 @@ import {
   type CalibrationResult,
   type Material,
 } from '../../src/index.js';
-import { readCalibration, type CalibrationFields } from '../../addin/jobs/calibrate/request.js';
+import { fittedText, readCalibration, type CalibrationFields } from '../../addin/jobs/calibrate/request.js';
 import { calibrationLayout, runCalibration } from '../../addin/jobs/calibrate/plan.js';
 import { blockRows, paramsBlockRows } from '../../addin/jobs/lookup/plan.js';
 import { MAXTEMP } from '../../functions/limits.js';
@@ -394,6 +394,11 @@ describe('task pane in Chromium with the in-memory sheet', () => {
       expect(reproduced?.trim()).toBe(`${valueIn(x.reproduced ?? NaN, x.unit)} ${x.unit}`);
       expect(within?.trim()).toBe(x.within ? 'yes' : 'no');
     }
+    // Each fitted parameter beside the family default, in the words of the written table (FITTED_HEADER).
+    await expect(page.locator('#cal-fitted li').allTextContents()).resolves.toEqual(
+      calibration.free.map((f) => fittedText(f, calibration.family)),
+    );
+    expect(calibration.family).toBe('PBT');
     // HDT/B was typed in degF and is shown in degC.
     expectClose(calibration.residuals[4]?.given ?? NaN, 160, { rel: 1e-12, source: 'NIST SP 811 (2008) B.8: (320 - 32) / 1.8 = 160' });
     await expect(page.textContent('#cal-caution')).resolves.toMatch(/not the grade's behaviour at other times/);

@@ -3,7 +3,7 @@
  * has), the result (quality, datasheet check, parameters fitted, notes) and writing the calibrated block.
  * Reading the form is request.ts; the fit and the block (plan.ts) are fetched as their own chunk on first use.
  */
-import { significant, valueIn } from '../../../src/base/display.js';
+import { valueIn } from '../../../src/base/display.js';
 import type { CalibrationResult } from '../../../src/fit/calibrate.js';
 import { FAMILIES, getFamily } from '../../../src/material/families.js';
 import { qualified } from '../../sheet/a1.js';
@@ -13,7 +13,14 @@ import type { Shell } from '../../shell/shell.js';
 import { summarize } from '../lookup/plan.js';
 import { CALIBRATION_NOTE } from '../notes.js';
 import type { ReviewJob } from '../review/pane.js';
-import { CALIBRATION_FIELD_NAMES, QUALITY_TEXT, readCalibration, type CalibrationFields, type CalibrationRequest } from './request.js';
+import {
+  CALIBRATION_FIELD_NAMES,
+  fittedText,
+  QUALITY_TEXT,
+  readCalibration,
+  type CalibrationFields,
+  type CalibrationRequest,
+} from './request.js';
 
 /** The element of each calibration field. */
 const CAL_INPUT: Record<keyof CalibrationFields, string> = {
@@ -197,17 +204,7 @@ function renderCalibration(r: CalibrationResult): void {
       ? []
       : [
           h('h4', {}, 'Parameters fitted'),
-          h(
-            'ul',
-            { class: 'notes' },
-            ...r.free.map((f) =>
-              h(
-                'li',
-                {},
-                `${f.field}: ${significant(f.start, 4)} to ${significant(f.value, 4)}${f.atBound ? ' (on its search bound)' : ''}`,
-              ),
-            ),
-          ),
+          h('ul', { class: 'notes' }, ...r.free.map((f) => h('li', { 'data-field': f.field }, fittedText(f, r.family)))),
         ]),
   );
   byId('cal-notes').replaceChildren(...r.notes.map((n) => h('li', {}, capital(n))));

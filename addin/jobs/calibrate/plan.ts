@@ -5,7 +5,13 @@
  * The pane loads this module (and with it the engine's least-squares code) on the first calibration;
  * reading the form is request.ts.
  */
-import { calibrateDatasheet, calibrationCheckRows, type CalibrationResult } from '../../../src/fit/calibrate.js';
+import {
+  calibrateDatasheet,
+  calibrationCheckRows,
+  calibrationFittedRows,
+  FITTED_HEADER,
+  type CalibrationResult,
+} from '../../../src/fit/calibrate.js';
 import { InputError } from '../../../src/base/errors.js';
 import type { Box, Cell } from '../../sheet/a1.js';
 import { CALIBRATION_FIELD_NAMES as N, QUALITY_TEXT, type CalibrationRequest } from './request.js';
@@ -50,12 +56,10 @@ export interface CalibrationLayout {
   readonly cautionRow: number;
 }
 
-const FITTED_HEADER = ['fitted parameter', 'start value', 'calibrated', 'on search bound'] as const;
-
 export function calibrationLayout(result: CalibrationResult): CalibrationLayout {
   const block = paramsBlockRows(result.params).length;
   const check = calibrationCheckRows(result);
-  const cols = Math.max(check[0]?.length ?? 0, 4);
+  const cols = Math.max(check[0]?.length ?? 0, FITTED_HEADER.length, 4);
   const checkTitleRow = block + 1;
   const checkHeaderRow = checkTitleRow + 1;
   let next = checkHeaderRow + check.length + 1;
@@ -114,7 +118,12 @@ export function calibrationPlan(req: CalibrationRequest, result: CalibrationResu
       const { fittedRow, notesRow } = L;
       if (fittedRow !== null) {
         putRow(fittedRow, FITTED_HEADER);
-        result.free.forEach((f, i) => putRow(fittedRow + 1 + i, [f.field, f.start, f.value, f.atBound ? 'yes' : 'no']));
+        calibrationFittedRows(result).forEach((row, i) =>
+          putRow(
+            fittedRow + 1 + i,
+            row.map((c) => c ?? ''),
+          ),
+        );
       }
       if (notesRow !== null) {
         put(notesRow, 0, { value: 'Notes of the calibration' });

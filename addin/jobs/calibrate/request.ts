@@ -3,7 +3,8 @@
  * calibration request (engine units), and the words for the quality of a result. Light on purpose: the
  * calibration itself (plan.ts beside it) is loaded on first use.
  */
-import type { CalibrationResult, DatasheetInputs, ModulusDatum } from '../../../src/fit/calibrate.js';
+import type { CalibrationResult, DatasheetInputs, FreeResult, ModulusDatum } from '../../../src/fit/calibrate.js';
+import { significant } from '../../../src/base/display.js';
 import { InputError } from '../../../src/base/errors.js';
 import type { Family } from '../../../src/material/families.js';
 import { HDT_METHODS } from '../../../src/answers/hdt.js';
@@ -113,3 +114,14 @@ export const QUALITY_TEXT: Record<CalibrationResult['quality'], string> = {
   fair: 'every datasheet number is reproduced within three tolerances, not all within one',
   poor: 'some datasheet numbers are not reproduced (or the fit did not converge); read the notes before using the block',
 };
+
+/**
+ * One fitted parameter in words, with the columns of the written table (FITTED_HEADER): start, calibrated,
+ * family default, family low to family high.
+ */
+export function fittedText(f: FreeResult, family: string | null): string {
+  const n = (x: number): string => significant(x, 4);
+  const range = f.familyLow !== null && f.familyHigh !== null ? `, family low ${n(f.familyLow)}, family high ${n(f.familyHigh)}` : '';
+  const beside = family !== null && f.familyDefault !== null ? `; family default ${n(f.familyDefault)}${range} (${family})` : '';
+  return `${f.field}: start ${n(f.start)}, calibrated ${n(f.value)}${f.atBound ? ' (on search bound)' : ''}${beside}`;
+}
