@@ -20,8 +20,17 @@ import { expectClose } from './expect.js';
 const temps = Array.from({ length: 60 }, (_, i) => 173.15 + i * 8); // -100 to 372 degC
 const times = Array.from({ length: 25 }, (_, i) => 10 ** (-2 + i * 0.5)); // 10 ms to 1e10 s
 
+/** An ideal network (creepN 0: no physical relaxation of the rubbery state), for the closed forms of rubber elasticity. */
 function rubber(overrides: Partial<MaterialParams> = {}): MaterialParams {
-  return { ...blankParams('test-rubber', 'crosslinked'), Tg_C: -60, Eg_MPa: 2000, density_kgm3: 1000, Mc_kgmol: 5, ...overrides };
+  return {
+    ...blankParams('test-rubber', 'crosslinked'),
+    Tg_C: -60,
+    Eg_MPa: 2000,
+    density_kgm3: 1000,
+    Mc_kgmol: 5,
+    creepN: 0,
+    ...overrides,
+  };
 }
 
 describe('the four-region model over every bundled family', () => {

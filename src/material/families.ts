@@ -3,7 +3,8 @@
  *
  * The bundled polymer families, keyed by ISO 1043-1 symbols (elastomers by ISO 1629). Every number
  * carries its source: a handbook, "common practice", "from memory", or "set here" (an estimate made
- * in this project, with how it was made). Values are for unfilled, general-purpose grades.
+ * in this project, with how it was made). Values are for unfilled, general-purpose grades (the rubbers: filled
+ * compounds of the Shore A hardness their notes give).
  */
 import { UnknownFamilyError } from '../base/errors.js';
 import type { Kind, MaterialParams, NumericField } from './params.js';
@@ -52,6 +53,10 @@ export const SRC = {
   sharedModuli:
     "derived: the dry grade's glassy and crystal moduli at the conditioned Tg (water plasticizes only the amorphous phase); the datasheet conditioned modulus is a check value",
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
+  rubberRelaxation:
+    'from memory: filled rubbers lose 2 to 5 % of stress per decade of time at room temperature (Gent (ed.), Engineering with Rubber, 3rd ed. 2012, stress relaxation chapter); 0.013 gives 3 % per decade',
+  compoundMc:
+    "set here: an effective Mc for the filled compound (filler reinforcement included), so that the 23 degC modulus is that of the Shore A hardness in the note by Gent's relation (Trans. Inst. Rubber Ind. 34 (1958) 46)",
 } as const;
 
 type SourceMap = Partial<Record<NumericField, string>>;
@@ -362,28 +367,31 @@ const ENTRIES: Entry[] = [
     id: 'EPDM',
     name: 'ethylene-propylene-diene rubber, sulfur-cured',
     kind: 'crosslinked',
+    note: 'compound-typical: filled, Shore A 70 (about 5.5 MPa at 23 degC); grades range from Shore A 40 to 90',
     Tg: [-50, -55, -45],
     Eg: 2000,
-    set: { density_kgm3: 860, Mc_kgmol: 2 },
-    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network },
+    set: { density_kgm3: 860, Mc_kgmol: 1.1, creepN: 0.013 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.compoundMc, creepN: SRC.rubberRelaxation },
   },
   {
     id: 'NR',
     name: 'natural rubber, sulfur-cured',
     kind: 'crosslinked',
+    note: 'compound-typical: filled, Shore A 60 (about 3.6 MPa at 23 degC); grades range from Shore A 30 to 90',
     Tg: [-70, -72, -65],
     Eg: 2000,
-    set: { density_kgm3: 930, Mc_kgmol: 4, C1: 16.7, C2_K: 53.6 },
-    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network, C1: SRC.ferryNR, C2_K: SRC.ferryNR },
+    set: { density_kgm3: 930, Mc_kgmol: 1.85, C1: 16.7, C2_K: 53.6, creepN: 0.013 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.compoundMc, C1: SRC.ferryNR, C2_K: SRC.ferryNR, creepN: SRC.rubberRelaxation },
   },
   {
     id: 'VMQ',
     name: 'silicone rubber (methyl vinyl)',
     kind: 'crosslinked',
+    note: 'compound-typical: silica-filled, Shore A 60 (about 3.6 MPa at 23 degC); grades range from Shore A 20 to 80',
     Tg: [-125, -130, -120],
     Eg: 1500,
-    set: { density_kgm3: 1150, Mc_kgmol: 5 },
-    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.network },
+    set: { density_kgm3: 1150, Mc_kgmol: 2.3, creepN: 0.013 },
+    src: { density_kgm3: SRC.network, Mc_kgmol: SRC.compoundMc, creepN: SRC.rubberRelaxation },
   },
 ];
 

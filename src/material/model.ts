@@ -12,8 +12,10 @@
  *                     above 23 degC (melting; X at and below 23 degC), times exp(-(T - Tm)/2 K) above Tm
  *                     (also below 23 degC when Tm is, so E stays continuous)
  *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113)
- *   crosslinked       E = g (Eg - Er) G + Er, Er = 3 rho R T / Mc (Flory 1953; Treloar 1975)
- * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T.
+ *   crosslinked       E = g [(Eg - Er) G + Er], Er = 3 rho R T / Mc (Flory 1953; Treloar 1975); the
+ *                     network relaxes by the slow-creep factor too (physical relaxation of a rubber)
+ * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T (for a
+ * network E - Er is still non-increasing: (g - 1) Er falls as g falls and Er rises).
  * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
  * A Prony-series material (pronymaterial.ts, fitted from test curves) is evaluated by the same entry
  * points: E = E_inf + sum E_i exp(-xi / tau_i), with its own shift law.
@@ -282,11 +284,15 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   if (m.kind === 'crosslinked') {
     const Er = m.networkMPaPerK * TK;
     p.glassy = g * Math.max(0, Eg - Er) * G;
-    p.rubbery = Er;
+    // A rubber is not an ideal network: filled rubbers lose a few per cent of stress per decade of time at room
+    // temperature (physical relaxation of dangling chains and the filler network; Gent (ed.), Engineering with
+    // Rubber, 3rd ed. 2012, stress relaxation chapter, from memory). The bounded power law g, on the slow-creep
+    // clock, carries it: a loss of 1 - 10^-creepN per decade once t >> tau_c, never below zero, g = 1 at t = 0.
+    p.rubbery = g * Er;
     p.F = 1;
     p.remaining = 0;
     p.lambda = 0;
-    return p.glassy + Er;
+    return p.glassy + p.rubbery;
   }
   const F = Math.exp(-Math.exp(m.flowBeta * (lnX - m.lnFlowRatio)));
   const glassy = g * Math.max(0, Eg - m.plateau) * G;

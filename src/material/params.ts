@@ -189,7 +189,7 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 0.3,
     optional: false,
     kinds: ALL,
-    description: 'power-law exponent of slow creep of the glass and crystals (per decade of time)',
+    description: 'power-law exponent of slow creep of the glass and crystals, and of a rubber network (per decade of time)',
   },
   {
     key: 'creepEa_kJmol',
