@@ -150,17 +150,6 @@ function hdtPoints(text: string | undefined): HdtPoint[] {
   );
 }
 
-/** Runs an engine call whose InputErrors name engine words; they come back naming the CLI option. */
-function asOptions<T>(names: Readonly<Record<string, string>>, f: () => T): T {
-  try {
-    return f();
-  } catch (e) {
-    const to = e instanceof InputError ? names[e.argument] : undefined;
-    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
-    throw e;
-  }
-}
-
 /** The parameter record a start names, for the checks that need it (none for a Prony material, which the engine refuses). */
 function startParams(start: MaterialInput): MaterialParams | undefined {
   if (typeof start === 'string') return getFamily(start).params;
@@ -379,9 +368,8 @@ export const CALIBRATION_COMMANDS: Record<string, Command> = {
       const f = need(v, 'frequency', frequencyInput);
       const free = freeFields(opt(v, 'free'));
       const id = opt(v, 'id');
-      const r = asOptions({ start: '--family', free: '--free', frequency: '--frequency' }, () =>
-        fitDma(start, sweep, { frequencyHz: f, ...(free ? { free } : {}), ...(id ? { id } : {}) }),
-      );
+      // Engine names (start, free, frequency) become options through the shared table of cli/failure.ts.
+      const r = fitDma(start, sweep, { frequencyHz: f, ...(free ? { free } : {}), ...(id ? { id } : {}) });
       const data = {
         params: paramsToRecord(r.params),
         free: r.free,

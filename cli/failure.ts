@@ -32,7 +32,7 @@ const ENGINE_NAMES: Readonly<Record<string, string>> = {
   free: 'free',
   start: 'params',
   frequency: 'frequency',
-  reference_temperature: 'ref',
+  ref_temperature: 'ref',
   cycles: 'cycles',
 };
 

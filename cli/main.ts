@@ -65,17 +65,6 @@ function materialFrom(v: Values): Material {
   return resolveMaterial(materialInputFrom(v));
 }
 
-/** Runs an engine call whose InputErrors name engine arguments, renaming them to the CLI options they came from. */
-function renamed<T>(names: Readonly<Record<string, string>>, fn: () => T): T {
-  try {
-    return fn();
-  } catch (e) {
-    const to = e instanceof InputError ? names[e.argument] : undefined;
-    if (e instanceof InputError && to !== undefined) throw new InputError(to, e.problem);
-    throw e;
-  }
-}
-
 function inverseText(a: InverseAnswer, above: string, below: string): string {
   return a.status === 'above-throughout' ? above : below;
 }
@@ -234,9 +223,8 @@ const COMMANDS: Record<string, Command> = {
       checkHistory(segments, cycles, { cycles: '--cycles', durations: '--cycle' });
       const ref = maybe(v, 'ref', temperatureInput);
       const refK = ref === undefined ? undefined : checkTemperatureInDomain(m, ref, '--ref');
-      const names = { ref_temperature: '--ref', temperatures: '--cycle', durations: '--cycle', cycles: '--cycles' };
-      const teq = renamed(names, () => equivalentTimeS(m, segments, refK, cycles));
-      const after = renamed(names, () => modulusAfterHistory(m, segments, cycles, refK));
+      const teq = equivalentTimeS(m, segments, refK, cycles);
+      const after = modulusAfterHistory(m, segments, cycles, refK);
       const refC = kelvinToC(refK ?? hottestK(segments));
       emit(
         out,
@@ -295,7 +283,7 @@ const COMMANDS: Record<string, Command> = {
     summary: 'derating table: modulus and ratio to 23 degC / 1 h for families at temperatures after a time',
     usage: "resin-derate table --families PC,PA66-cond --temps 23,60,80 --time '1000 h' [--format md|csv|json]",
     options: { families: { type: 'string' }, temps: { type: 'string' }, time: { type: 'string' }, format: { type: 'string' } },
-    names: { reference: '--families', temperature: '--temps', temperatures: '--temps' },
+    names: { reference: '--families', materials: '--families', temperature: '--temps', temperatures: '--temps' },
     run(v, out) {
       const ids = need(v, 'families', listInput(familyInput)).map((f) => f.params.id);
       // degC for the table, with the round-off of the kelvin round trip removed (1e-9 K), as DERATE.GRID does.
@@ -303,7 +291,7 @@ const COMMANDS: Record<string, Command> = {
       const tS = need(v, 'time', timeInput);
       const format = (v['format'] as string | undefined) ?? 'md';
       if (!['md', 'csv', 'json'].includes(format)) throw new InputError('--format', `must be md, csv or json, got '${format}'`);
-      const rows = renamed({ materials: '--families', temperatures: '--temps' }, () => deratingTable(ids, temps, tS));
+      const rows = deratingTable(ids, temps, tS);
       if (format === 'json') {
         const data = rows.map((r) => ({
           id: r.id,

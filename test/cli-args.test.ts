@@ -212,6 +212,27 @@ describe('failure reports', () => {
     );
     const start = await run('calibrate', '--params', prony, '--tg', '150');
     expect(start.err).toMatch(/^resin-derate calibrate: --params: a Prony material cannot be calibrated/);
+    // dmafit's engine words (start, free, frequency) go through the same tables: the Prony start came from --params.
+    const dma = await run('dmafit', '--params', prony, '--data', 'demo/latch-pc-dma-invented.csv', '--frequency', '1');
+    expect(dma.err).toMatch(/^resin-derate dmafit: --params: start a DMA fit from a family or a parameter record/);
+  });
+
+  it("eqtime and table name their options for the engine's words (one table per command, cli/failure.ts)", async () => {
+    // A reference far colder than the history: the engine's ref_temperature is the option --ref.
+    const cold = await run('eqtime', '--family', 'PC', '--cycle', '70:8,30:16', '--cycles', '3650', '--ref', '-100');
+    expect(cold.code).toBe(2);
+    expect(cold.err).toMatch(/^resin-derate eqtime: --ref: the equivalent time at -100 degC is .* use its hottest segment, 70 degC/);
+    const table: Command = {
+      summary: '',
+      usage: '',
+      options: { families: { type: 'string' }, temps: { type: 'string' } },
+      run: () => undefined,
+    };
+    const withNames: Command = { ...table, names: { materials: '--families' } };
+    expect(failure(new InputError('materials', 'x'), withNames, {}).message).toBe('--families: x');
+    expect(failure(new InputError('ref_temperature', 'x'), { ...table, options: { ref: { type: 'string' } } }, {}).message).toBe(
+      '--ref: x',
+    );
   });
 
   it('an unknown command, including Object.prototype member names, is one line and exit 2', async () => {
