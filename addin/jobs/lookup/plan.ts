@@ -1,7 +1,7 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
 import { BLOCK_HEADER, paramsBlock } from '../../../functions/core/block.js';
 import { valueIn } from '../../../src/base/display.js';
-import { FAMILIES, type Family } from '../../../src/material/families.js';
+import { displayedParams, FAMILIES, type Family } from '../../../src/material/families.js';
 import type { MaterialParams, NumericField } from '../../../src/material/params.js';
 import type { Cell } from '../../sheet/a1.js';
 import type { CellWrite } from '../../sheet/port.js';
@@ -23,7 +23,8 @@ export interface FamilySummary {
 }
 
 function quantity(f: Family, label: string, key: NumericField, low: NumericField, high: NumericField, unit: string): Quantity {
-  const p = f.params;
+  // A conditioned polyamide shows its wet Tg and modulus; its block keeps the dry ones and the humidity.
+  const p = displayedParams(f.params);
   const v = p[key];
   if (v === null) return { label, text: '-', source: 'not used for this kind' };
   const lo = p[low];
