@@ -128,7 +128,7 @@ export interface SplitSymbol {
 }
 
 const CLAUSE = /^(.*?)\s*(?:\bat\b|@)\s*([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?)\s*%\s*r\.?\s*h\.?\s*$/i;
-const LOOSE_CLAUSE = /(?:\s\bat\b\s*[\d.+-]|@)/i;
+const LOOSE_CLAUSE = /(?:\s\bat\s+\S|@)/i;
 
 /**
  * Splits "PA66 at 70 % RH" (also "PA66 @ 70%RH", any case) into the symbol and the relative humidity (%);
