@@ -362,7 +362,7 @@ export const VERSION: string = pkg.version;
 
 function helpText(): string {
   const lines = [...COMMAND_TABLE].map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
-  return `resin-derate ${VERSION}: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options; resin-derate --version)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\nA negative value follows its option as typed: --temp -40, or --temp=-40.\n${CAUTION}\n`;
+  return `resin-derate ${VERSION}: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options; resin-derate --version)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\nA negative value follows its option as typed: --temp -40, or --temp=-40.\n--family ID is a symbol that 'resin-derate families' lists, or a polyamide at a humidity: --family 'PA66 at 70 % RH' (a bare PA6 or PA66 is 50 % RH).\n${CAUTION}\n`;
 }
 
 /**
