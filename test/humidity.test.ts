@@ -5,6 +5,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  calibrateDatasheet,
   compileMaterial,
   DATASHEET_TIME_S,
   displayedParams,
@@ -221,6 +222,17 @@ describe('parameter block with a humidity', () => {
     const p = paramsFromRecord({ ...old, Tg_C: 18, Tg_low_C: null, Tg_high_C: null });
     expect(p.humidity_pct).toBe(0);
     expect(compileMaterial(p).shift.TrefK).toBe(18 + C);
+  });
+
+  it('calibrates a conditioned start to conditioned datasheet values by fitting its dry Tg_C and E23_MPa', () => {
+    const r = calibrateDatasheet('PA66-cond', { modulus23MPa: 1500, TgK: 15 + C });
+    const m = compileMaterial(r.params);
+    expect(r.params.humidity_pct).toBe(50);
+    expectClose(modulusMPa(m, DATASHEET_TIME_S, T23_K), 1500, {
+      rel: 0.05,
+      source: 'round trip: the datasheet value given (checks.ts PA66-cond)',
+    });
+    expectClose(m.shift.TrefK - C, 15, { abs: 2, source: 'round trip: the wet Tg given' });
   });
 
   it('refuses a humidity on a block that takes up no water, naming the field', () => {
