@@ -3,6 +3,8 @@
  * is the command table: one entry per command (options, usage, run), each short.
  */
 import {
+  displayedParams,
+  KELVIN_OFFSET,
   apparentTg,
   bandEstimate,
   checkHistory,
@@ -75,22 +77,24 @@ const COMMANDS: Record<string, Command> = {
     usage: 'resin-derate families [--json]',
     options: { ...json },
     run(v, out) {
-      const data = FAMILIES.map((f) => ({
-        id: f.params.id,
-        name: f.params.name,
-        kind: f.params.kind,
-        Tg_C: f.params.Tg_C,
-        Tm_C: f.params.Tm_C,
-        E23_MPa: f.params.E23_MPa,
-        sources: f.sources,
+      // A conditioned polyamide lists its wet Tg and modulus (`params` prints the dry ones and the humidity).
+      const shown = FAMILIES.map((f) => ({ p: displayedParams(f.params), sources: f.sources }));
+      const data = shown.map(({ p, sources }) => ({
+        id: p.id,
+        name: p.name,
+        kind: p.kind,
+        Tg_C: p.Tg_C,
+        Tm_C: p.Tm_C,
+        E23_MPa: p.E23_MPa,
+        sources,
       }));
-      const rows = FAMILIES.map((f) => [
-        f.params.id,
-        f.params.kind,
-        String(f.params.Tg_C),
-        f.params.Tm_C === null ? '' : String(f.params.Tm_C),
-        f.params.E23_MPa === null ? '' : String(f.params.E23_MPa),
-        f.params.name,
+      const rows = shown.map(({ p }) => [
+        p.id,
+        p.kind,
+        String(p.Tg_C),
+        p.Tm_C === null ? '' : String(p.Tm_C),
+        p.E23_MPa === null ? '' : String(p.E23_MPa),
+        p.name,
       ]);
       emit(out, v, data, markdownTable(['id', 'kind', 'Tg degC', 'Tm degC', 'E23 MPa', 'name'], rows));
     },
@@ -147,7 +151,7 @@ const COMMANDS: Record<string, Command> = {
         out,
         v,
         { log10_aT: log10aT, law },
-        `log10 aT = ${significant(log10aT, 4)} (${law}, reference Tg = ${temperatureText(m.params.Tg_C)})\n`,
+        `log10 aT = ${significant(log10aT, 4)} (${law}, reference Tg = ${temperatureText(m.shift.TrefK - KELVIN_OFFSET)})\n`,
       );
     },
   },
@@ -346,7 +350,7 @@ export const VERSION: string = pkg.version;
 
 function helpText(): string {
   const lines = [...COMMAND_TABLE].map(([name, c]) => `  ${name.padEnd(10)} ${c.summary}`);
-  return `resin-derate ${VERSION}: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options; resin-derate --version)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\nA negative value follows its option as typed: --temp -40, or --temp=-40.\n${CAUTION}\n`;
+  return `resin-derate ${VERSION}: screening estimates of polymer stiffness versus time and temperature\n\nUsage: resin-derate COMMAND [options]   (resin-derate COMMAND --help for its options; resin-derate --version)\n\n${lines.join('\n')}\n\nBare numbers: temperatures degC, times hours, moduli MPa; unit text such as '80 degC', '1000 h', '2.4 GPa' is accepted.\nA negative value follows its option as typed: --temp -40, or --temp=-40.\n--family ID is a symbol that 'resin-derate families' lists, or a polyamide at a humidity: --family 'PA66 at 70 % RH' (a bare PA6 or PA66 is 50 % RH).\n${CAUTION}\n`;
 }
 
 /**

@@ -1,5 +1,5 @@
 /** The bundled family table and the editable parameter block of one family. */
-import { FAMILIES } from '../src/index.js';
+import { displayedParams, FAMILIES } from '../src/index.js';
 import { family } from './core/args/material.js';
 import { BLOCK_COLUMNS, BLOCK_ROWS, paramsBlock } from './core/block.js';
 import type { OutCell } from './core/cells.js';
@@ -26,7 +26,8 @@ export const FAMILIES_DEF = defineMatrix({
   run: () => {
     const rows: OutCell[][] = [[...FAMILY_HEADER]];
     for (const f of FAMILIES) {
-      const p = f.params;
+      // A conditioned polyamide lists its wet Tg and modulus; its PARAMS block keeps the dry ones and the humidity.
+      const p = displayedParams(f.params);
       const s = f.sources;
       rows.push([
         p.id,
@@ -65,7 +66,7 @@ export const PARAMS = defineMatrix({
 /**
  * Spills the model parameters of a family as a labelled block (field, value, unit, description). Copy it, paste values, edit them, and pass the range as the material of any DERATE function.
  * @customfunction PARAMS
- * @param family Family symbol such as "PC" or "PA66-cond" (text; DERATE.FAMILIES lists them).
+ * @param family Family symbol such as "PC" or "PA66-cond", or a polyamide at a humidity such as "PA66 at 70 % RH" (text; DERATE.FAMILIES lists them).
  * @returns {any[][]} Block of field, value, unit and description rows, with a header row.
  */
 export function params(family: unknown) {

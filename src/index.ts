@@ -6,6 +6,7 @@ export * from './material/shift.js';
 export * from './material/params.js';
 export * from './material/model.js';
 export * from './material/families.js';
+export * from './material/humidity.js';
 export * from './material/resolve.js';
 export * from './numeric/roots.js';
 export * from './answers/inverse.js';

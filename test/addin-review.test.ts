@@ -58,6 +58,19 @@ describe('families job', () => {
     expect(searchFamilies('amorphous sulfone').map((f) => f.params.id)).toEqual(['PSU', 'PESU']);
     expect(searchFamilies('no such polymer')).toEqual([]);
   });
+  it('finds a polyamide at a humidity, shows its wet Tg, and writes its block with the humidity', () => {
+    const [f, ...rest] = searchFamilies('PA66 at 70 % RH');
+    expect(rest).toEqual([]);
+    expect(f?.params.id).toBe('PA66 at 70 % RH');
+    expect(searchFamilies('PC at 50 % RH')).toEqual([]);
+    if (!f) return;
+    // Gordon-Taylor wet Tg (humidity.ts), well below the dry 60 degC; the block keeps the dry Tg_C and the humidity.
+    expect(summarize(f).quantities[0]?.text).toMatch(/^-?\d+(\.\d)? degC/);
+    expect(parseFloat(summarize(f).quantities[0]?.text ?? '')).toBeLessThan(20);
+    const rows = blockRows(f);
+    expect(rows.find((r) => r[0] === 'humidity_pct')?.[1]).toBe(70);
+    expect(rows.find((r) => r[0] === 'Tg_C')?.[1]).toBe(60);
+  });
   it('shows Tg, Tm and the 23 degC modulus with their sources', () => {
     const pc = summarize(getFamily('PC'));
     expect(pc.quantities.map((q) => q.text)).toEqual(['147 degC (145 to 150)', '-', '2350 MPa (2200 to 2500)']);

@@ -581,6 +581,8 @@ export function paramRecord(
           p.Tm_low_C = between(-100, p.Tm_C, 1 - spread[0] * 0.1);
           p.Tm_high_C = between(p.Tm_C, 450, spread[1] * 0.1);
         }
+        // A humidity needs a material that takes up water (validateParams refuses humidity_pct > 0 with waterSat 0).
+        if (p.waterSat === 0) p.humidity_pct = 0;
         if (ranges[2] && p.E23_MPa !== null) {
           p.E23_low_MPa = between(0.1, p.E23_MPa, 1 - u[2] * 0.2);
           p.E23_high_MPa = between(p.E23_MPa, 20000, u[2] * 0.2);

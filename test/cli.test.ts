@@ -39,6 +39,18 @@ describe('resin-derate CLI contract', () => {
     expect(a['modulus_MPa']).toBeGreaterThan(b['modulus_MPa'] ?? Infinity);
   });
 
+  it('takes a polyamide at a humidity, and a params file whose edited humidity_pct gives the wet Tg', () => {
+    const at70 = json('modulus', '--family', 'PA66 at 70 % RH', '--temp', '40', '--time', '1000 h') as Record<string, number>;
+    const engine = modulusMPa(compileMaterial(getFamily('PA66 at 70 % RH').params), 3.6e6, 313.15);
+    expectClose(at70['modulus_MPa'] ?? NaN, engine, { rel: 1e-12, source: 'engine value (same code path)' });
+    const rec = json('params', '--family', 'PA66-dry') as Record<string, unknown>;
+    const dir = mkdtempSync(join(tmpdir(), 'rd-'));
+    const file = join(dir, 'pa66.json');
+    writeFileSync(file, JSON.stringify({ ...rec, humidity_pct: 70 }));
+    const edited = json('modulus', '--params', file, '--temp', '40', '--time', '1000 h') as Record<string, number>;
+    expectClose(edited['modulus_MPa'] ?? NaN, engine, { rel: 1e-12, source: 'same record at 70 % RH (humidity.ts)' });
+  });
+
   it('modulus --json answers with the engine value and the contract keys', () => {
     const r = json('modulus', '--family', 'PC', '--temp', '176 degF', '--time', '1000 h') as Record<string, unknown>;
     expect(Object.keys(r).sort()).toEqual(['high_MPa', 'low_MPa', 'modulus_MPa', 'region', 'temperature_C', 'time_s']);
@@ -96,9 +108,14 @@ describe('resin-derate CLI contract', () => {
       // Words of the shared input layer (src/input/), the same as the worksheet's with the option's name.
       [['modulus', '--family', 'PC', '--temp', '80'], /--time: is missing; type a time \(a number in hours/],
       [
-        ['modulus', '--family', 'PA66', '--temp', '80', '--time', '1'],
-        /--family: unknown family "PA66"; did you mean "PA66-cond", "PA66-dry"\? \(resin-derate families lists the symbols\)/,
+        ['modulus', '--family', 'PA66-wet', '--temp', '80', '--time', '1'],
+        /--family: unknown family "PA66-wet"; did you mean "PA66-cond", "PA66-dry".*\? \(resin-derate families lists the symbols\)/,
       ],
+      [
+        ['modulus', '--family', 'PC at 50 % RH', '--temp', '80', '--time', '1'],
+        /--family: a humidity applies to polyamides only \(PA6, PA66\)/,
+      ],
+      [['modulus', '--family', 'PA66-dry @ 0%RH', '--temp', '80', '--time', '1'], /--family: .*either PA66-dry or a humidity/],
       [['modulus', '--family', 'PC', '--temp', '80', '--time=-1 h'], /--time: a time must be greater than zero/],
       [['modulus', '--family', 'PC', '--temp', '80', '--time', '-1 h'], /--time: a time must be greater than zero/],
       [['maxtemp', '--family', 'PC', '--modulus', 'lots', '--time', '1 h'], /--modulus: expected a number/],

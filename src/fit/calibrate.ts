@@ -24,6 +24,7 @@ import { fieldSpec, NUMERIC_FIELDS, type Kind, type MaterialParams, type Numeric
 import { isPronySpec } from '../material/pronymaterial.js';
 import type { MaterialInput } from '../material/resolve.js';
 import { getFamily } from '../material/families.js';
+import { isHumid } from '../material/humidity.js';
 import { KELVIN_OFFSET } from '../base/units.js';
 import { longTermChanges, LONG_TERM_S, type LongTermChange } from './longterm.js';
 
@@ -266,7 +267,21 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   const fits: FitInput[] = [];
   const residualRows: { input: string; unit: 'MPa' | 'degC'; given: number; via: NumericField; evaluate: (m: Material) => number }[] = [];
 
-  if (inputs.TgK !== undefined) {
+  // A humid start (a conditioned polyamide) holds the dry Tg_C and E23_MPa; the datasheet gives the grade in
+  // its humid state, so its Tg and 23 degC modulus are met by fitting those dry values, not by setting them.
+  const humid = isHumid(p0);
+  if (inputs.TgK !== undefined && humid) {
+    const given = inputs.TgK - KELVIN_OFFSET;
+    fits.push({
+      label: 'Tg',
+      unit: 'degC',
+      given,
+      tolerance: `${HDT_TOLERANCE_K} K`,
+      evaluate: (m) => m.shift.TrefK - KELVIN_OFFSET,
+      scale: (r) => ((r ?? NaN) - given) / HDT_TOLERANCE_K,
+      candidates: ['Tg_C'],
+    });
+  } else if (inputs.TgK !== undefined) {
     base.Tg_C = inputs.TgK - KELVIN_OFFSET;
     direct.set('Tg_C', 'Tg');
     residualRows.push({ input: 'Tg', unit: 'degC', given: base.Tg_C, via: 'Tg_C', evaluate: (m) => m.params.Tg_C });
@@ -280,7 +295,7 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   const modulusAt23 = (m: Material): number => modulusMPa(m, DATASHEET_TIME_S, T23_K);
   if (inputs.modulus23MPa !== undefined) {
     const E = inputs.modulus23MPa;
-    if (p0.E23_MPa !== null) {
+    if (p0.E23_MPa !== null && !humid) {
       base.E23_MPa = E;
       direct.set('E23_MPa', 'modulus at 23 degC');
       residualRows.push({ input: 'modulus at 23 degC', unit: 'MPa', given: E, via: 'E23_MPa', evaluate: modulusAt23 });
@@ -292,7 +307,7 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
         tolerance: `${MODULUS_TOLERANCE * 100} %`,
         evaluate: modulusAt23,
         scale: (r) => Math.log((r ?? 0) / E) / MODULUS_TOLERANCE,
-        candidates: kind === 'crosslinked' ? ['Mc_kgmol', 'Eg_MPa'] : ['Eg_MPa'],
+        candidates: kind === 'crosslinked' ? ['Mc_kgmol', 'Eg_MPa'] : p0.E23_MPa !== null ? ['E23_MPa'] : ['Eg_MPa'],
       });
     }
   }

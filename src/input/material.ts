@@ -26,7 +26,7 @@ export class UnknownFamilyInput extends InputError {
   }
 }
 
-export const FAMILY_WHAT = 'a family symbol such as "PC" or "PA66-cond"';
+export const FAMILY_WHAT = 'a family symbol such as "PC", "PA66-cond" or "PA66 at 70 % RH"';
 
 /** A bundled family by its ISO 1043 symbol (case and surrounding spaces do not matter). */
 export const familyInput: Quantity<Family> = {
@@ -38,6 +38,8 @@ export const familyInput: Quantity<Family> = {
     try {
       return getFamily(raw);
     } catch (e) {
+      // A humidity clause that does not read, or one given twice or to a material that takes up no water.
+      if (e instanceof InputError) throw new InputError(name, e.problem);
       if (!(e instanceof UnknownFamilyError)) throw e;
       const near = e.suggestions.length > 0 ? `; did you mean ${e.suggestions.map((s) => `"${s}"`).join(', ')}?` : '';
       throw new UnknownFamilyInput(name, `unknown family ${showRaw(raw.trim())}${near}`, e.suggestions);

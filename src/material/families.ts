@@ -9,8 +9,9 @@
 import { UnknownFamilyError } from '../base/errors.js';
 import type { Kind, MaterialParams, NumericField } from './params.js';
 import { WLF_UNIVERSAL_C1, WLF_UNIVERSAL_C2_K } from './shift.js';
-import { compileMaterial, DATASHEET_TIME_S, GLASS_SLOPE_SPAN_K, modulusMPa, T23_K } from './model.js';
-import { KELVIN_OFFSET } from '../base/units.js';
+import { DEFAULT_RH_PCT, equilibriumDays, POLYAMIDE_ISOTHERMS, splitHumidity, waterContent, wetTgC, withHumidity } from './humidity.js';
+import { InputError } from '../base/errors.js';
+import { compileMaterial, DATASHEET_TIME_S, modulusMPa, T23_K } from './model.js';
 
 export const SRC = {
   handbookTg:
@@ -48,10 +49,9 @@ export const SRC = {
   tauMech: 'from memory: the 1 Hz loss peak (ISO 6721-11) lies 0 to 5 K above the DSC Tg (ISO 11357-2), a mechanical time near 1 s at Tg',
   eaGlassEq:
     'set here: between aged-glass creep (100 to 300 kJ/mol, from memory) and the WLF slope at Tg (about 1100 kJ/mol for PC), so that with the 1 s time the 1000 h apparent Tg stays 20 to 30 K below Tg (common practice)',
-  gordonTaylor:
-    'Gordon-Taylor, J. Appl. Chem. 2 (1952) 493, with water (Tg 136 K) in the amorphous phase only; the water content at 23 degC / 50 % RH is a typical datasheet value (from memory)',
-  sharedModuli:
-    "derived: the dry grade's glassy and crystal moduli at the conditioned Tg (water plasticizes only the amorphous phase); the datasheet conditioned modulus is a check value",
+  humidity: 'set here: the state of the entry (0 % RH dry as moulded, 50 % RH conditioned at 23 degC, ISO 291 standard atmosphere)',
+  noWater: 'set here: neutral, the model takes no water into this family',
+  isotherm: 'from memory: power-law isotherm through typical datasheet water contents at 23 degC / 50 % RH and at saturation (humidity.ts)',
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
   rubberRelaxation:
     'from memory: filled rubbers lose 2 to 5 % of stress per decade of time at room temperature (Gent (ed.), Engineering with Rubber, 3rd ed. 2012, stress relaxation chapter); 0.013 gives 3 % per decade',
@@ -81,11 +81,11 @@ interface Entry {
   set?: Partial<MaterialParams>;
   src?: SourceMap;
   /**
-   * A moisture-conditioned grade: the dry family it shares its glassy and crystal moduli with, and its
-   * water content (mass fraction of the whole part); Tg then follows from Gordon-Taylor, everything else
-   * is the dry grade's, and Tg and E23 above are the handbook and datasheet values it is checked against.
+   * A moisture-conditioned grade: the dry family's record at a relative humidity (%); the wet Tg follows on
+   * compile (humidity.ts). Tg and E23 above are then the handbook range of the wet Tg and the datasheet
+   * conditioned modulus, kept for the checks only (test/families.test.ts, checks.ts).
    */
-  conditioned?: { from: string; water: number };
+  conditioned?: { from: string; rhPct: number };
 }
 
 const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: SourceMap }> = {
@@ -134,6 +134,14 @@ const KIND_DEFAULTS: Record<Kind, { values: Partial<MaterialParams>; sources: So
     sources: { tauTg_s: SRC.tauMech, Ea_kJmol: SRC.eaGlassEq, tnmX: SRC.tnmX, fictiveExcess_K: SRC.fictiveExcess },
   },
 };
+
+const PA6_ISO = POLYAMIDE_ISOTHERMS['PA6'] ?? { waterSat: 0, sorptionN: 1 };
+const PA66_ISO = POLYAMIDE_ISOTHERMS['PA66'] ?? { waterSat: 0, sorptionN: 1 };
+
+/** Wall thickness of the equilibrium-time note, mm (set here: a typical moulded wall). */
+const NOTE_WALL_MM = 3;
+const EQUILIBRIUM_NOTE = `a ${NOTE_WALL_MM} mm wall takes some ${Math.round(equilibriumDays(NOTE_WALL_MM) / 30)} months to come within 10 % of equilibrium at 23 degC (Fickian diffusion, Crank 1975), so a part fresh from the mould is drier and stiffer for weeks`;
+const CONDITIONED_NOTE = `50 % RH at 23 degC, the state in ordinary indoor air; ${EQUILIBRIUM_NOTE}`;
 
 const ENTRIES: Entry[] = [
   {
@@ -243,8 +251,8 @@ const ENTRIES: Entry[] = [
     Tg: [55, 50, 60],
     Tm: [222, 220, 225],
     E23: [3000, 2600, 3300],
-    set: { crystallinity: 0.3, meltSharpness: 12 },
-    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt },
+    set: { crystallinity: 0.3, meltSharpness: 12, waterSat: PA6_ISO.waterSat, sorptionN: PA6_ISO.sorptionN },
+    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt, waterSat: SRC.isotherm, sorptionN: SRC.isotherm },
   },
   {
     id: 'PA6-cond',
@@ -253,8 +261,8 @@ const ENTRIES: Entry[] = [
     Tg: [10, 0, 20],
     Tm: [222, 220, 225],
     E23: [1100, 900, 1400],
-    src: { Tg_C: SRC.gordonTaylor, E23_MPa: SRC.sharedModuli },
-    conditioned: { from: 'PA6-dry', water: 0.026 },
+    note: CONDITIONED_NOTE,
+    conditioned: { from: 'PA6-dry', rhPct: DEFAULT_RH_PCT },
   },
   {
     id: 'PA66-dry',
@@ -263,8 +271,8 @@ const ENTRIES: Entry[] = [
     Tg: [60, 50, 70],
     Tm: [260, 255, 265],
     E23: [3100, 2800, 3500],
-    set: { crystallinity: 0.3, meltSharpness: 16 },
-    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt },
+    set: { crystallinity: 0.3, meltSharpness: 16, waterSat: PA66_ISO.waterSat, sorptionN: PA66_ISO.sorptionN },
+    src: { crystallinity: SRC.crystallinityHdt, meltSharpness: SRC.melt, waterSat: SRC.isotherm, sorptionN: SRC.isotherm },
   },
   {
     id: 'PA66-cond',
@@ -273,8 +281,8 @@ const ENTRIES: Entry[] = [
     Tg: [20, 10, 30],
     Tm: [260, 255, 265],
     E23: [1500, 1200, 1800],
-    src: { Tg_C: SRC.gordonTaylor, E23_MPa: SRC.sharedModuli },
-    conditioned: { from: 'PA66-dry', water: 0.027 },
+    note: CONDITIONED_NOTE,
+    conditioned: { from: 'PA66-dry', rhPct: DEFAULT_RH_PCT },
   },
   {
     id: 'POM',
@@ -422,6 +430,9 @@ const BASE_SOURCES: SourceMap = {
   glassySlope_perK: SRC.glassySlope,
   fictiveExcess_K: SRC.fictive,
   tnmX: SRC.fictive,
+  humidity_pct: SRC.humidity,
+  waterSat: SRC.noWater,
+  sorptionN: SRC.noWater,
 };
 
 /** A record with every field empty (null) or at its neutral default; the base of every family. */
@@ -459,57 +470,10 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
     Tm_high_C: null,
     E23_low_MPa: null,
     E23_high_MPa: null,
+    humidity_pct: 0,
+    waterSat: 0,
+    sorptionN: 1,
   };
-}
-
-/** Tg of amorphous water, K (Johari, Hallbrucker and Mayer, Nature 330 (1987) 552; from memory). */
-export const WATER_TG_K = 136;
-/**
- * Gordon-Taylor constant of water in an aliphatic polyamide (set here: with 2.6 to 2.8 % water at 23 degC /
- * 50 % RH it puts PA6 and PA66 15 to 20 degC, inside the handbook conditioned ranges, and their 23 degC
- * moduli within 20 % of the conditioned datasheet values; water plasticizes far more strongly than its Tg
- * alone suggests, from memory).
- */
-export const GORDON_TAYLOR_K_WATER = 6.8;
-
-/**
- * Tg (degC) of a polymer plasticized by water: Gordon-Taylor, Tg = (w1 Tg1 + k w2 Tg2) / (w1 + k w2), with
- * the water mass fraction w2 taken in the amorphous phase (crystals take up none).
- */
-export function gordonTaylorTgC(dryTgC: number, waterFraction: number, crystallinity: number, k = GORDON_TAYLOR_K_WATER): number {
-  const w2 = waterFraction / (1 - crystallinity);
-  const w1 = 1 - w2;
-  return (w1 * (dryTgC + KELVIN_OFFSET) + k * w2 * WATER_TG_K) / (w1 + k * w2) - KELVIN_OFFSET;
-}
-
-/** The conditioned record: the dry grade with the Gordon-Taylor Tg and the same glassy and crystal moduli. */
-function conditionedFrom(dry: MaterialParams, p: MaterialParams, water: number): void {
-  // Rounded to 0.1 K, the precision a Tg is quoted to.
-  const dTg = Math.round((gordonTaylorTgC(dry.Tg_C, water, dry.crystallinity) - dry.Tg_C) * 10) / 10;
-  const m = compileMaterial(dry);
-  // The glassy modulus at 23 degC (extrapolated along the slope), shared with the dry grade.
-  const Eg23 = m.EgMPa / Math.exp(dry.glassySlope_perK * GLASS_SLOPE_SPAN_K);
-  const Tg_C = dry.Tg_C + dTg;
-  const wet = compileMaterial({
-    ...dry,
-    Tg_C,
-    Tg_low_C: null,
-    Tg_high_C: null,
-    E23_MPa: null,
-    E23_low_MPa: null,
-    E23_high_MPa: null,
-    Eg_MPa: Eg23,
-  });
-  const E23 = modulusMPa(wet, DATASHEET_TIME_S, T23_K);
-  const scale = E23 / (dry.E23_MPa ?? E23);
-  Object.assign(p, {
-    Tg_C,
-    Tg_low_C: dry.Tg_low_C === null ? null : dry.Tg_low_C + dTg,
-    Tg_high_C: dry.Tg_high_C === null ? null : dry.Tg_high_C + dTg,
-    E23_MPa: E23,
-    E23_low_MPa: dry.E23_low_MPa === null ? null : dry.E23_low_MPa * scale,
-    E23_high_MPa: dry.E23_high_MPa === null ? null : dry.E23_high_MPa * scale,
-  });
 }
 
 function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
@@ -521,11 +485,10 @@ function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
   if (e.Eg !== undefined) p.Eg_MPa = e.Eg;
   Object.assign(p, e.set);
   if (e.conditioned) {
-    // Everything but Tg (and the 23 degC modulus that follows from it) is the dry grade's.
+    // The dry grade's record at a humidity: Tg_C and E23_MPa stay the dry values, the wet Tg follows on compile.
     const dry = built.get(e.conditioned.from);
     if (!dry) throw new Error(`family ${e.id}: the dry grade ${e.conditioned.from} must come first`);
-    Object.assign(p, dry.params, { id: e.id, name: e.name });
-    conditionedFrom(dry.params, p, e.conditioned.water);
+    Object.assign(p, dry.params, { id: e.id, name: e.name, humidity_pct: e.conditioned.rhPct });
   }
   const sources: SourceMap = { ...BASE_SOURCES, ...d.sources, ...e.src };
   for (const key of Object.keys(sources) as NumericField[]) {
@@ -564,12 +527,89 @@ export const FAMILIES: readonly Family[] = ((): Family[] => {
 
 const BY_ID = new Map(FAMILIES.map((f) => [f.params.id.toLowerCase(), f]));
 
-/** Looks up a family by id (case-insensitive); throws UnknownFamilyError with the closest ids. */
+/** Families at a humidity, derived on demand, by canonical id in lower case ("pa66 at 70 % rh"). */
+const DERIVED = new Map<string, Family>();
+/** Derived families kept at most (set here: a workbook names a few humidities; the cache is refilled when full). */
+const DERIVED_CAP = 64;
+
+/** The canonical id of a polyamide at a relative humidity (%): "PA66 at 70 % RH". */
+export function humidityId(base: string, rhPct: number): string {
+  return `${base} at ${rhPct} % RH`;
+}
+
+/**
+ * A polyamide (bare symbol, as POLYAMIDE_ISOTHERMS lists them) at a relative humidity (%): the dry
+ * entry's record with humidity_pct set; the wet Tg follows on compile. Cached by canonical id.
+ */
+function polyamideAt(base: string, rhPct: number): Family {
+  const id = humidityId(base, rhPct);
+  const key = id.toLowerCase();
+  const cached = DERIVED.get(key);
+  if (cached) return cached;
+  const iso = POLYAMIDE_ISOTHERMS[base];
+  const dry = iso ? BY_ID.get(iso.dry.toLowerCase()) : undefined;
+  if (!iso || !dry) throw new UnknownFamilyError(base, suggestFamilies(base));
+  const p = withHumidity(dry.params, rhPct);
+  const water = waterContent(rhPct, p.waterSat, p.sorptionN);
+  const params = Object.freeze({ ...p, id, name: `${iso.name} at ${rhPct} % RH, 23 degC` }) as MaterialParams;
+  const tg = Math.round(wetTgC(params) * 10) / 10;
+  const note =
+    `${(water * 100).toFixed(1)} % water at equilibrium, Tg ${tg} degC; a bare ${base} is taken at ${DEFAULT_RH_PCT} % RH, ` +
+    `ordinary indoor air, the cautious default (softer than dry as moulded); ${EQUILIBRIUM_NOTE}`;
+  const family: Family = { params, sources: Object.freeze({ ...dry.sources, humidity_pct: 'given with the symbol' }), note };
+  if (DERIVED.size >= DERIVED_CAP) DERIVED.clear();
+  DERIVED.set(key, family);
+  return family;
+}
+
+/**
+ * Looks up a family by id (case-insensitive), a bare polyamide symbol (PA6, PA66: at 50 % RH) or a
+ * polyamide with a humidity clause ("PA66 at 70 % RH"); throws UnknownFamilyError with the closest ids,
+ * or InputError (argument 'family') for a humidity given twice or on a material that takes up no water.
+ */
 export function getFamily(id: string): Family {
   const key = id.trim().toLowerCase();
-  const found = BY_ID.get(key);
+  const found = BY_ID.get(key) ?? DERIVED.get(key);
   if (found) return found;
-  throw new UnknownFamilyError(id, suggestFamilies(id));
+  const { symbol, rhPct } = splitHumidity(id);
+  const base = POLYAMIDES_BY_LOWER.get(symbol.toLowerCase());
+  if (base !== undefined) return polyamideAt(base, rhPct ?? DEFAULT_RH_PCT);
+  if (rhPct === null) throw new UnknownFamilyError(id, suggestFamilies(id));
+  const named = BY_ID.get(symbol.toLowerCase());
+  if (!named) throw new UnknownFamilyError(symbol, suggestFamilies(symbol));
+  if (named.params.humidity_pct > 0 || (named.params.waterSat > 0 && /-(dry|cond)$/i.test(symbol))) {
+    throw new InputError(
+      'family',
+      `"${id.trim()}" gives the moisture twice: give either ${named.params.id} or a humidity (such as "${symbol.replace(/-(dry|cond)$/i, '')} at ${rhPct} % RH"), not both`,
+    );
+  }
+  withHumidity(named.params, rhPct, 'family');
+  throw new UnknownFamilyError(symbol, suggestFamilies(symbol));
+}
+
+const POLYAMIDES_BY_LOWER = new Map(Object.keys(POLYAMIDE_ISOTHERMS).map((b) => [b.toLowerCase(), b]));
+
+/**
+ * The record as a family list shows it (degC, MPa): a humid record's Tg fields are its wet Tg and its 23 degC
+ * modulus fields the model's at that humidity (the record itself keeps the dry values, humidity.ts); any other
+ * record as it is.
+ */
+export function displayedParams(p: MaterialParams): MaterialParams {
+  if (wetTgC(p) === p.Tg_C) return p;
+  const E23 = modulusMPa(compileMaterial(p), DATASHEET_TIME_S, T23_K);
+  const scale = p.E23_MPa === null ? 1 : E23 / p.E23_MPa;
+  // Tg to 0.1 K and moduli to 10 MPa, the precision the table quotes them to.
+  const round = (x: number | null, step: number): number | null =>
+    x === null ? null : step < 1 ? Math.round(x * 10) / 10 : Math.round(x / 10) * 10;
+  return {
+    ...p,
+    Tg_C: round(wetTgC(p), 0.1) ?? p.Tg_C,
+    Tg_low_C: round(p.Tg_low_C === null ? null : wetTgC(p, p.Tg_low_C), 0.1),
+    Tg_high_C: round(p.Tg_high_C === null ? null : wetTgC(p, p.Tg_high_C), 0.1),
+    E23_MPa: p.E23_MPa === null ? null : round(E23, 10),
+    E23_low_MPa: round(p.E23_low_MPa === null ? null : p.E23_low_MPa * scale, 10),
+    E23_high_MPa: round(p.E23_high_MPa === null ? null : p.E23_high_MPa * scale, 10),
+  };
 }
 
 /** Up to three family ids closest to the given text (prefix match first, then edit distance). */

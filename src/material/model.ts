@@ -23,6 +23,7 @@
 import { InputError, ParameterError } from '../base/errors.js';
 import type { Kind, MaterialParams } from './params.js';
 import { validateParams } from './params.js';
+import { dryRecord, isHumid, wetTgC } from './humidity.js';
 import { pronyModulusMPa, pronyGlassyMPa, type PronySeries } from './prony.js';
 import { brentRoot } from '../numeric/roots.js';
 import { arrheniusLog10, GAS_CONSTANT, shiftLog10, WLF_SINGULARITY_MARGIN_K, type ShiftConstants } from './shift.js';
@@ -119,8 +120,16 @@ export function compileMaterial(params: MaterialParams): Material {
   const cached = compiled.get(params);
   if (cached) return cached;
   validateParams(params);
-  const base = build(params, params.Eg_MPa ?? 1000);
-  const material = params.E23_MPa === null ? checkGlassy(base) : anchorGlassyModulus(base, params.E23_MPa);
+  let material: Material;
+  if (isHumid(params)) {
+    // Water lowers only Tg: the glassy and crystal moduli are the dry record's (Tg_C and E23_MPa are dry values).
+    const dry = compileMaterial(dryRecord(params));
+    const Eg23 = dry.EgMPa / Math.exp(params.glassySlope_perK * GLASS_SLOPE_SPAN_K);
+    material = checkGlassy(build(params, Eg23, wetTgC(params)));
+  } else {
+    const base = build(params, params.Eg_MPa ?? 1000);
+    material = params.E23_MPa === null ? checkGlassy(base) : anchorGlassyModulus(base, params.E23_MPa);
+  }
   compiled.set(params, material);
   return material;
 }
@@ -128,10 +137,11 @@ export function compileMaterial(params: MaterialParams): Material {
 /**
  * The material with its glassy modulus given at 23 degC (MPa; extrapolated along the slope where Tg is
  * lower); the stored EgMPa is the value at the cold end of the slope, GLASS_SLOPE_SPAN_K lower. Materials
- * that differ only in Tg (dry and conditioned polyamides) thus share the glassy and crystal moduli.
+ * that differ only in Tg (dry and conditioned polyamides) thus share the glassy and crystal moduli. TgC is
+ * the Tg the clock uses (the wet Tg of a humid record).
  */
-function build(p: MaterialParams, EgRefMPa: number): Material {
-  const TgK = p.Tg_C + KELVIN_OFFSET;
+function build(p: MaterialParams, EgRefMPa: number, TgC = p.Tg_C): Material {
+  const TgK = TgC + KELVIN_OFFSET;
   const glassLowK = T23_K - GLASS_SLOPE_SPAN_K;
   return {
     params: p,

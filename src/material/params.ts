@@ -42,6 +42,10 @@ export interface MaterialParams {
   Tm_high_C: number | null;
   E23_low_MPa: number | null;
   E23_high_MPa: number | null;
+  /** Humidity (polyamides; humidity.ts). */
+  humidity_pct: number;
+  waterSat: number;
+  sorptionN: number;
 }
 
 export type NumericField = {
@@ -78,7 +82,7 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 400,
     optional: false,
     kinds: ALL,
-    description: 'glass transition temperature (DSC, about 100 s time scale)',
+    description: 'glass transition temperature (DSC, about 100 s time scale); the dry Tg when humidity_pct is above 0',
   },
   {
     key: 'Tm_C',
@@ -96,7 +100,8 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 20000,
     optional: true,
     kinds: ALL,
-    description: 'short-term modulus at 23 degC (datasheet); sets the glassy modulus. Give this or Eg_MPa',
+    description:
+      'short-term modulus at 23 degC (datasheet; dry when humidity_pct is above 0); sets the glassy modulus. Give this or Eg_MPa',
   },
   {
     key: 'Eg_MPa',
@@ -270,6 +275,37 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     kinds: ALL,
     description: 'high end of the 23 degC modulus range, for the band',
   },
+  // Humidity (polyamides; humidity.ts): neutral values take up no water, so blocks written earlier keep their answers.
+  {
+    key: 'humidity_pct',
+    unit: '%',
+    min: 0,
+    max: 100,
+    optional: false,
+    kinds: THERMOPLASTIC,
+    neutral: 0,
+    description: 'relative humidity at 23 degC the part is in equilibrium with; lowers Tg_C (dry) through the isotherm on compile',
+  },
+  {
+    key: 'waterSat',
+    unit: 'fraction',
+    min: 0,
+    max: 0.2,
+    optional: false,
+    kinds: THERMOPLASTIC,
+    neutral: 0,
+    description: 'water content at 100 % RH, mass fraction of the part (0 = takes up no water)',
+  },
+  {
+    key: 'sorptionN',
+    unit: '-',
+    min: 0.5,
+    max: 5,
+    optional: false,
+    kinds: THERMOPLASTIC,
+    neutral: 1,
+    description: 'exponent n of the sorption isotherm, water = waterSat (RH/100)^n',
+  },
 ];
 
 export const TEXT_FIELDS = ['id', 'name', 'kind', 'shiftLaw'] as const;
@@ -323,6 +359,13 @@ export function validateParams(p: MaterialParams): MaterialParams {
     }
   } else if (p.Tm_C !== null) {
     throw new ParameterError('Tm_C', `is only used for semicrystalline materials; leave it empty for a ${p.kind} one`, p.Tm_C);
+  }
+  if (p.kind !== 'crosslinked' && p.humidity_pct > 0 && p.waterSat === 0) {
+    throw new ParameterError(
+      'humidity_pct',
+      `${p.humidity_pct} % has no effect: waterSat is 0, so the material takes up no water; a humidity applies to polyamides (give waterSat and sorptionN, or set humidity_pct to 0)`,
+      p.humidity_pct,
+    );
   }
   checkRange(p, 'Tg_low_C', 'Tg_C', 'Tg_high_C');
   checkRange(p, 'Tm_low_C', 'Tm_C', 'Tm_high_C');

@@ -22,10 +22,12 @@ function renderFamilies(query: string, write: (id: string) => void): void {
   byId('family-list').replaceChildren(
     ...found.map((f) => {
       const s = summarize(f);
+      // A derived id ("PA66 at 70 % RH") has spaces, which an element id and aria-describedby cannot hold.
+      const headId = `fam-${s.id.replace(/[^A-Za-z0-9-]+/g, '-')}`;
       return h(
         'li',
         { class: 'card', 'data-family': s.id },
-        h('div', { class: 'card-head' }, h('h3', { id: `fam-${s.id}` }, s.id), h('span', { class: `kind kind-${f.params.kind}` }, s.kind)),
+        h('div', { class: 'card-head' }, h('h3', { id: headId }, s.id), h('span', { class: `kind kind-${f.params.kind}` }, s.kind)),
         h('p', { class: 'card-name' }, s.name),
         s.note ? h('p', { class: 'card-note' }, s.note) : null,
         h('dl', { class: 'facts' }, ...s.quantities.flatMap((q) => [h('dt', {}, q.label), h('dd', {}, q.text)])),
@@ -37,7 +39,7 @@ function renderFamilies(query: string, write: (id: string) => void): void {
         ),
         h(
           'button',
-          { type: 'button', class: 'secondary', 'aria-describedby': `fam-${s.id}`, onclick: () => write(s.id) },
+          { type: 'button', class: 'secondary', 'aria-describedby': headId, onclick: () => write(s.id) },
           'Write parameters at the selected cell',
         ),
       );

@@ -1,7 +1,8 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
 import { BLOCK_HEADER, paramsBlock } from '../../../functions/core/block.js';
 import { valueIn } from '../../../src/base/display.js';
-import { FAMILIES, type Family } from '../../../src/material/families.js';
+import { displayedParams, FAMILIES, getFamily, type Family } from '../../../src/material/families.js';
+import { splitHumidity } from '../../../src/material/humidity.js';
 import type { MaterialParams, NumericField } from '../../../src/material/params.js';
 import type { Cell } from '../../sheet/a1.js';
 import type { CellWrite } from '../../sheet/port.js';
@@ -23,7 +24,8 @@ export interface FamilySummary {
 }
 
 function quantity(f: Family, label: string, key: NumericField, low: NumericField, high: NumericField, unit: string): Quantity {
-  const p = f.params;
+  // A conditioned polyamide shows its wet Tg and modulus; its block keeps the dry ones and the humidity.
+  const p = displayedParams(f.params);
   const v = p[key];
   if (v === null) return { label, text: '-', source: 'not used for this kind' };
   const lo = p[low];
@@ -46,8 +48,13 @@ export function summarize(f: Family): FamilySummary {
   };
 }
 
-/** Families whose id, name or kind contains every word of the query (case-insensitive); all for an empty query. */
+/**
+ * Families whose id, name or kind contains every word of the query (case-insensitive); all for an empty query.
+ * A polyamide with a humidity clause ("PA66 at 70 % RH") finds that one derived family, so its block can be written.
+ */
 export function searchFamilies(query: string): Family[] {
+  const atHumidity = familyAtHumidity(query);
+  if (atHumidity) return [atHumidity];
   const words = query
     .toLowerCase()
     .split(/[\s,]+/)
@@ -57,6 +64,16 @@ export function searchFamilies(query: string): Family[] {
       `${f.params.id} ${f.params.name} ${f.params.kind} ${f.params.kind === 'semicrystalline' ? 'semi-crystalline' : ''} ${f.note}`.toLowerCase();
     return words.every((w) => hay.includes(w));
   });
+}
+
+/** The family a query names with a humidity clause, or null (no clause, or one that does not resolve). */
+function familyAtHumidity(query: string): Family | null {
+  try {
+    return splitHumidity(query).rhPct === null ? null : getFamily(query);
+  } catch {
+    // Half-typed or refused text: the ordinary word search answers (with no match), the pane stays quiet while typing.
+    return null;
+  }
 }
 
 /**
