@@ -14,7 +14,7 @@ import {
   fitCurves,
   fitDma,
   frequencyInput,
-  getFamily,
+  getGrade,
   glassTransitionInput,
   HDT_METHODS,
   hdtStressInput,
@@ -161,7 +161,7 @@ function asOptions<T>(names: Readonly<Record<string, string>>, f: () => T): T {
 
 /** The parameter record a start names, for the checks that need it (none for a Prony material, which the engine refuses). */
 function startParams(start: MaterialInput): MaterialParams | undefined {
-  if (typeof start === 'string') return getFamily(start).params;
+  if (typeof start === 'string') return getGrade(start).params;
   return isPronySpec(start) ? undefined : start;
 }
 

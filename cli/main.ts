@@ -12,7 +12,8 @@ import {
   deratingTable,
   durationText,
   equivalentTimeS,
-  FAMILIES,
+  familiesAndGrades,
+  listedModulusMPa,
   familyInput,
   hdtStressInput,
   hottestK,
@@ -82,27 +83,31 @@ function inverseText(a: InverseAnswer, above: string, below: string): string {
 
 const COMMANDS: Record<string, Command> = {
   families: {
-    summary: 'list the bundled polymer families',
+    summary: 'list the bundled polymer families and common filled grades',
     usage: 'resin-derate families [--json]',
     options: { ...json },
     run(v, out) {
-      const data = FAMILIES.map((f) => ({
+      const listed = familiesAndGrades();
+      const data = listed.map((f) => ({
         id: f.params.id,
         name: f.params.name,
         kind: f.params.kind,
         Tg_C: f.params.Tg_C,
         Tm_C: f.params.Tm_C,
-        E23_MPa: f.params.E23_MPa,
+        E23_MPa: listedModulusMPa(f),
         sources: f.sources,
       }));
-      const rows = FAMILIES.map((f) => [
-        f.params.id,
-        f.params.kind,
-        String(f.params.Tg_C),
-        f.params.Tm_C === null ? '' : String(f.params.Tm_C),
-        f.params.E23_MPa === null ? '' : String(f.params.E23_MPa),
-        f.params.name,
-      ]);
+      const rows = listed.map((f) => {
+        const E23 = listedModulusMPa(f);
+        return [
+          f.params.id,
+          f.params.kind,
+          String(f.params.Tg_C),
+          f.params.Tm_C === null ? '' : String(f.params.Tm_C),
+          E23 === null ? '' : f.params.filler === 'none' ? String(E23) : significant(E23, 2),
+          f.params.name,
+        ];
+      });
       emit(out, v, data, markdownTable(['id', 'kind', 'Tg degC', 'Tm degC', 'E23 MPa', 'name'], rows));
     },
   },

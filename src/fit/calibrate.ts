@@ -24,6 +24,7 @@ import { fieldSpec, NUMERIC_FIELDS, type Kind, type MaterialParams, type Numeric
 import { isPronySpec } from '../material/pronymaterial.js';
 import type { MaterialInput } from '../material/resolve.js';
 import { getFamily } from '../material/families.js';
+import { getGrade } from '../material/grade.js';
 import { KELVIN_OFFSET } from '../base/units.js';
 import { longTermChanges, LONG_TERM_S, type LongTermChange } from './longterm.js';
 
@@ -205,7 +206,7 @@ function startParams(start: MaterialInput): MaterialParams {
   if (isPronySpec(start)) {
     throw new InputError('start', 'a Prony material cannot be calibrated from datasheet points; start from a family or a parameter record');
   }
-  const p = typeof start === 'string' ? getFamily(start).params : start;
+  const p = typeof start === 'string' ? getGrade(start).params : start;
   compileMaterial(p);
   return { ...p };
 }

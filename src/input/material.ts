@@ -4,7 +4,8 @@
  * the names of parameters to fit. Every problem is an InputError naming the input.
  */
 import { InputError, ParameterError, UnknownFamilyError } from '../base/errors.js';
-import { getFamily, type Family } from '../material/families.js';
+import type { Family } from '../material/families.js';
+import { getGrade } from '../material/grade.js';
 import { compileMaterial, type Material } from '../material/model.js';
 import { NUMERIC_FIELDS, type MaterialParams, type NumericField } from '../material/params.js';
 import { compilePronyMaterial, isPronyRecord, isPronyTable, pronyFromRecord, pronyFromTable } from '../material/pronymaterial.js';
@@ -26,9 +27,12 @@ export class UnknownFamilyInput extends InputError {
   }
 }
 
-export const FAMILY_WHAT = 'a family symbol such as "PC" or "PA66-cond"';
+export const FAMILY_WHAT = 'a family symbol such as "PC" or "PA66-cond", or a filled grade such as "PBT-GF30"';
 
-/** A bundled family by its ISO 1043 symbol (case and surrounding spaces do not matter). */
+/**
+ * A bundled family by its ISO 1043 symbol, or a filled grade `<family>-<filler code><mass %>` (grade.ts);
+ * case and surrounding spaces do not matter.
+ */
 export const familyInput: Quantity<Family> = {
   what: FAMILY_WHAT,
   unit: 'symbol',
@@ -36,8 +40,10 @@ export const familyInput: Quantity<Family> = {
     const raw = trimmed(input);
     if (typeof raw !== 'string') throw new InputError(name, `expects ${FAMILY_WHAT}, got the number ${raw}`);
     try {
-      return getFamily(raw);
+      return getGrade(raw);
     } catch (e) {
+      // A filler code that is not supported, or a mass percent outside its range: the words say which.
+      if (e instanceof ParameterError) throw new InputError(name, e.problem);
       if (!(e instanceof UnknownFamilyError)) throw e;
       const near = e.suggestions.length > 0 ? `; did you mean ${e.suggestions.map((s) => `"${s}"`).join(', ')}?` : '';
       throw new UnknownFamilyInput(name, `unknown family ${showRaw(raw.trim())}${near}`, e.suggestions);

@@ -272,7 +272,7 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 1,
     optional: true,
     kinds: ALL,
-    description: `fibre orientation along the load, a11 in the plane: empty = 0.7, along flow in a moulded plaque (the datasheet direction); 0.3 across flow, 0.5 random`,
+    description: `fibre orientation along the load, a11 in the plane: empty = 0.75, along flow in a moulded plaque (the datasheet direction); 0.25 across flow, 0.5 random in the plane`,
   },
   { key: 'Tg_low_C', unit: 'degC', min: -150, max: 400, optional: true, kinds: ALL, description: 'low end of the Tg range, for the band' },
   {

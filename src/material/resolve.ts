@@ -1,18 +1,19 @@
 /** Turning what a user gives (a family id or a parameter record) into a compiled material. */
 import { InputError, ParameterError } from '../base/errors.js';
-import { editDistance, getFamily } from './families.js';
+import { editDistance } from './families.js';
+import { getGrade } from './grade.js';
 import { compileMaterial, type Material } from './model.js';
 import { FILLER_VALUES, KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
 import { fillerList, NO_FILLER, type FillerField } from './filler.js';
 import { compilePronyMaterial, isPronySpec, isPronyTable, pronyFromTable, type PronyMaterialSpec } from './pronymaterial.js';
 import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
 
-/** A family id (case-insensitive), a parameter record, or a Prony-series material. */
+/** A family id or filled grade (case-insensitive), a parameter record, or a Prony-series material. */
 export type MaterialInput = string | MaterialParams | PronyMaterialSpec;
 
 /** Compiles a family id, a parameter record or a Prony material into a material. */
 export function resolveMaterial(input: MaterialInput): Material {
-  if (typeof input === 'string') return compileMaterial(getFamily(input).params);
+  if (typeof input === 'string') return compileMaterial(getGrade(input).params);
   if (isPronySpec(input)) return compilePronyMaterial(input);
   return compileMaterial(input);
 }
