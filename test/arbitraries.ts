@@ -603,10 +603,13 @@ export function paramRecord(
  * A valid record with a filler: any supported code, a mass percent up to its maximum, the default or a drawn
  * aspect ratio and orientation (matrix drawn by paramRecord).
  */
-export function filledRecord(kind?: Kind): fc.Arbitrary<MaterialParams> {
+export function filledRecord(
+  kind?: Kind,
+  shiftLaws: readonly MaterialParams['shiftLaw'][] = ['hybrid', 'arrhenius'],
+): fc.Arbitrary<MaterialParams> {
   return fc
     .record({
-      p: paramRecord(kind),
+      p: paramRecord(kind, shiftLaws),
       code: fc.constantFrom(...FILLER_CODES),
       u: fc.double({ min: 0, max: 1, noNaN: true }),
       aspect: fc.option(fieldValue(spec('fillerAspect')), { nil: null }),
