@@ -212,17 +212,26 @@ export function buildComposite(code: FillerCode, massPct: number, matrixDensity:
 
 /** Halpin-Tsai: a composite property (MPa) from the filler's Pf and the matrix's Pm (MPa), zeta and the volume fraction phi. */
 export function halpinTsai(Pf: number, Pm: number, zeta: number, phi: number): number {
-  const eta = (Pf - Pm) / (Pf + zeta * Pm);
-  return (Pm * (1 + zeta * eta * phi)) / (1 - eta * phi);
+  return Pm * halpinTsaiRatio(Pf / Pm, zeta, phi);
+}
+
+/**
+ * Halpin-Tsai as P / Pm from r = Pf / Pm (dimensionless). Worked in ratios so that a nearly relaxed matrix
+ * (1e-150 MPa) keeps full precision; eta = (r - 1) / (r + zeta) written so that r = infinity gives 1.
+ */
+function halpinTsaiRatio(r: number, zeta: number, phi: number): number {
+  const eta = 1 - (1 + zeta) / (r + zeta);
+  return (1 + zeta * eta * phi) / (1 - eta * phi);
 }
 
 /** Modulus of the filled grade along the load (MPa) from the matrix modulus Em (MPa) at the same (t, T). */
 export function compositeModulusMPa(c: Composite, Em: number): number {
   if (c.phi === 0 || !(Em > 0)) return Em;
-  if (c.shape !== 'fibre') return halpinTsai(c.E1, Em, c.zeta, c.phi);
-  const E11 = halpinTsai(c.E1, Em, c.zeta, c.phi);
-  const E22 = halpinTsai(c.E2, Em, 2, c.phi);
-  const G12 = halpinTsai(c.G, Em / (2 * (1 + MATRIX_POISSON)), 1, c.phi);
+  if (c.shape !== 'fibre') return Em * halpinTsaiRatio(c.E1 / Em, c.zeta, c.phi);
+  // Moduli as ratios to Em, the answer scaled back at the end.
+  const E11 = halpinTsaiRatio(c.E1 / Em, c.zeta, c.phi);
+  const E22 = halpinTsaiRatio(c.E2 / Em, 2, c.phi);
+  const G12 = halpinTsaiRatio((c.G * 2 * (1 + MATRIX_POISSON)) / Em, 1, c.phi) / (2 * (1 + MATRIX_POISSON));
   const nu21 = (c.nu12 * E22) / E11;
   const d = 1 - c.nu12 * nu21;
   const Q11 = E11 / d;
@@ -232,7 +241,7 @@ export function compositeModulusMPa(c: Composite, Em: number): number {
   const Qx = c.c4 * Q11 + mixed + c.s4 * Q22;
   const Qy = c.s4 * Q11 + mixed + c.c4 * Q22;
   const Qxy = c.s2c2 * (Q11 + Q22 - 4 * G12) + (c.c4 + c.s4) * Q12;
-  return Qx - (Qxy * Qxy) / Qy;
+  return Em * (Qx - (Qxy * Qxy) / Qy);
 }
 
 /** Voigt and Reuss bounds (MPa) of the composite at matrix modulus Em (MPa): Hill, Proc. Phys. Soc. A 65 (1952) 349. */
