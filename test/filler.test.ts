@@ -156,7 +156,9 @@ describe('grade text', () => {
   });
 
   it('refuses an unsupported code with the supported list, and a mass percent outside the code range', () => {
-    expect(() => getGrade('PA66-dry-XF30')).toThrow(/"XF".*supported: GF \(glass fibre\), CF \(carbon fibre\), GB \(glass beads\), MD \(mineral powder\), TD \(talc powder\)/);
+    expect(() => getGrade('PA66-dry-XF30')).toThrow(
+      /"XF".*supported: GF \(glass fibre\), CF \(carbon fibre\), GB \(glass beads\), MD \(mineral powder\), TD \(talc powder\)/,
+    );
     expect(() => getGrade('PBT-GF70')).toThrow(ParameterError);
     expect(() => getGrade('PBT-GF70')).toThrow(/70 % of GF .* outside 5 to 60 %/);
     expect(() => getGrade('PBT-GF3')).toThrow(/outside 5 to 60 %/);
@@ -188,7 +190,9 @@ describe('filler fields of the parameter record', () => {
     const p = filled();
     const back = paramsFromRecord(paramsToRecord(p));
     expect(back).toEqual(p);
-    const block = paramsBlock(p).slice(1).map((r) => [r[0], r[1]]);
+    const block = paramsBlock(p)
+      .slice(1)
+      .map((r) => [r[0], r[1]]);
     // The block leaves fields the kind does not use (Mc_kgmol here) empty; they come back at their minimum.
     expect({ ...paramsFromBlockRows(block), Mc_kgmol: p.Mc_kgmol }).toEqual(p);
     expect(materialFromRecord(JSON.parse(JSON.stringify({ params: paramsToRecord(p) })), '--params')).toEqual(p);
@@ -207,7 +211,9 @@ describe('filler fields of the parameter record', () => {
 
   it('accepts a lower-case code and refuses others, a mass without a code, and a filled record without density', () => {
     expect(paramsFromRecord({ ...paramsToRecord(filled()), filler: 'gf' }).filler).toBe('GF');
-    expect(() => paramsFromRecord({ ...paramsToRecord(filled()), filler: 'kevlar' })).toThrow(/filler.*must be none or one of the ISO 1043-2 codes GF/);
+    expect(() => paramsFromRecord({ ...paramsToRecord(filled()), filler: 'kevlar' })).toThrow(
+      /filler.*must be none or one of the ISO 1043-2 codes GF/,
+    );
     expect(() => compileMaterial({ ...getFamily('PC').params, fillerMass_pct: 20 })).toThrow(/fillerMass_pct: 20 % needs a filler code/);
     expect(() => compileMaterial({ ...filled(), density_kgm3: null })).toThrow(/density_kgm3: is required for a filled material/);
     expect(() => compileMaterial({ ...filled(), fillerMass_pct: 65 })).toThrow(/above the 60 % supported for GF/);

@@ -52,8 +52,7 @@ export const SRC = {
   sharedModuli:
     "derived: the dry grade's glassy and crystal moduli at the conditioned Tg (water plasticizes only the amorphous phase); the datasheet conditioned modulus is a check value",
   unfilled: 'set here: the bundled families are unfilled grades (0 %); filled grades are built from them (grade.ts)',
-  density:
-    'common practice, from memory: typical unfilled-grade datasheet density (ISO 1183), for the filler volume fraction',
+  density: 'common practice, from memory: typical unfilled-grade datasheet density (ISO 1183), for the filler volume fraction',
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
 } as const;
 

@@ -30,7 +30,11 @@ function parseGrade(text: string): Family {
   const [, baseText = '', codeText = '', massText = ''] = m;
   const filler = fillerOf(codeText);
   if (!filler) {
-    throw new ParameterError('filler', `"${codeText}" in "${text}" is not a supported ISO 1043-2 filler code; supported: ${fillerList()}`, codeText);
+    throw new ParameterError(
+      'filler',
+      `"${codeText}" in "${text}" is not a supported ISO 1043-2 filler code; supported: ${fillerList()}`,
+      codeText,
+    );
   }
   let base: Family;
   try {

@@ -332,7 +332,11 @@ export function validateParams(p: MaterialParams): MaterialParams {
     throw new ParameterError('shiftLaw', `must be one of ${SHIFT_LAWS.join(', ')}, got '${String(p.shiftLaw)}'`, p.shiftLaw);
   }
   if (!FILLER_VALUES.includes(p.filler)) {
-    throw new ParameterError('filler', `must be ${NO_FILLER} or one of the ISO 1043-2 codes ${fillerList()}, got '${String(p.filler)}'`, p.filler);
+    throw new ParameterError(
+      'filler',
+      `must be ${NO_FILLER} or one of the ISO 1043-2 codes ${fillerList()}, got '${String(p.filler)}'`,
+      p.filler,
+    );
   }
   for (const f of NUMERIC_FIELDS) {
     const v = p[f.key];
@@ -377,7 +381,11 @@ export function validateParams(p: MaterialParams): MaterialParams {
 function checkFiller(p: MaterialParams): void {
   if (p.filler === NO_FILLER) {
     if (p.fillerMass_pct !== 0) {
-      throw new ParameterError('fillerMass_pct', `${p.fillerMass_pct} % needs a filler code in the field filler (${fillerList()})`, p.fillerMass_pct);
+      throw new ParameterError(
+        'fillerMass_pct',
+        `${p.fillerMass_pct} % needs a filler code in the field filler (${fillerList()})`,
+        p.fillerMass_pct,
+      );
     }
     return;
   }
@@ -386,7 +394,10 @@ function checkFiller(p: MaterialParams): void {
     throw new ParameterError('fillerMass_pct', `${p.fillerMass_pct} % is above the ${max} % supported for ${p.filler}`, p.fillerMass_pct);
   }
   if (p.density_kgm3 === null) {
-    throw new ParameterError('density_kgm3', 'is required for a filled material (the matrix density turns the filler mass percent into a volume fraction)');
+    throw new ParameterError(
+      'density_kgm3',
+      'is required for a filled material (the matrix density turns the filler mass percent into a volume fraction)',
+    );
   }
 }
 

@@ -47,7 +47,11 @@ export function paramsFromRecord(record: Readonly<Record<string, unknown>>): Mat
   const fillerText = text('filler', NO_FILLER);
   const filler = fillerText.toLowerCase() === NO_FILLER ? NO_FILLER : fillerText.toUpperCase();
   if (!FILLER_VALUES.includes(filler as FillerField)) {
-    throw new ParameterError('filler', `must be ${NO_FILLER} or one of the ISO 1043-2 codes ${fillerList()}, got '${fillerText}'`, fillerText);
+    throw new ParameterError(
+      'filler',
+      `must be ${NO_FILLER} or one of the ISO 1043-2 codes ${fillerList()}, got '${fillerText}'`,
+      fillerText,
+    );
   }
   const id = text('id', 'custom');
   const out: Record<string, unknown> = { id, name: text('name', id), kind, shiftLaw, filler };
