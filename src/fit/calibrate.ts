@@ -23,7 +23,6 @@ import { compileMaterial, DATASHEET_TIME_S, modulusMPa, T23_K, type Material } f
 import { fieldSpec, NUMERIC_FIELDS, type Kind, type MaterialParams, type NumericField } from '../material/params.js';
 import { isPronySpec } from '../material/pronymaterial.js';
 import type { MaterialInput } from '../material/resolve.js';
-import { getFamily } from '../material/families.js';
 import { getGrade } from '../material/grade.js';
 import { FILLERS, FLOW_ALIGN } from '../material/filler.js';
 import { KELVIN_OFFSET } from '../base/units.js';
