@@ -1,5 +1,5 @@
 /**
- * Kept whole at about 600 lines: the calibration is one algorithm (inputs, choice of free parameters, rounds of
+ * Kept whole at about 630 lines: the calibration is one algorithm (inputs, choice of free parameters, rounds of
  * least squares, the check of what moved) whose steps share private state and read best in order.
  *
  * Datasheet calibration: from a few datasheet numbers (short-term modulus at 23 degC, HDT at one or

@@ -1,4 +1,7 @@
 /**
+ * Kept whole at about 400 lines: most of it is the field table (one entry per field with its unit, bounds and
+ * words), and the cross-field rules below read it; splitting would separate a field from its checks.
+ *
  * The material parameter record: one flat list of fields, each with its unit, bounds and meaning. The
  * same table drives validation, the worksheet parameter block, the CLI's JSON and the docs.
  */
