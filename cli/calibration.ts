@@ -16,7 +16,7 @@ import {
   fitDma,
   FITTED_HEADER,
   frequencyInput,
-  getFamily,
+  getGrade,
   glassTransitionInput,
   HDT_METHODS,
   hdtStressInput,
@@ -152,7 +152,7 @@ function hdtPoints(text: string | undefined): HdtPoint[] {
 
 /** The parameter record a start names, for the checks that need it (none for a Prony material, which the engine refuses). */
 function startParams(start: MaterialInput): MaterialParams | undefined {
-  if (typeof start === 'string') return getFamily(start).params;
+  if (typeof start === 'string') return getGrade(start).params;
   return isPronySpec(start) ? undefined : start;
 }
 

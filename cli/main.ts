@@ -14,7 +14,8 @@ import {
   deratingTable,
   durationText,
   equivalentTimeS,
-  FAMILIES,
+  familiesAndGrades,
+  listedModulusMPa,
   familyInput,
   hdtStressInput,
   hottestK,
@@ -73,29 +74,32 @@ function inverseText(a: InverseAnswer, above: string, below: string): string {
 
 const COMMANDS: Record<string, Command> = {
   families: {
-    summary: 'list the bundled polymer families',
+    summary: 'list the bundled polymer families and common filled grades',
     usage: 'resin-derate families [--json]',
     options: { ...json },
     run(v, out) {
-      // A conditioned polyamide lists its wet Tg and modulus (`params` prints the dry ones and the humidity).
-      const shown = FAMILIES.map((f) => ({ p: displayedParams(f.params), sources: f.sources }));
-      const data = shown.map(({ p, sources }) => ({
-        id: p.id,
-        name: p.name,
-        kind: p.kind,
-        Tg_C: p.Tg_C,
-        Tm_C: p.Tm_C,
-        E23_MPa: p.E23_MPa,
-        sources,
+      const listed = familiesAndGrades();
+      // A humid polyamide lists its wet Tg and modulus (`params` prints the dry ones and the humidity).
+      const data = listed.map((f) => ({
+        id: f.params.id,
+        name: f.params.name,
+        kind: f.params.kind,
+        Tg_C: displayedParams(f.params).Tg_C,
+        Tm_C: f.params.Tm_C,
+        E23_MPa: listedModulusMPa(f),
+        sources: f.sources,
       }));
-      const rows = shown.map(({ p }) => [
-        p.id,
-        p.kind,
-        String(p.Tg_C),
-        p.Tm_C === null ? '' : String(p.Tm_C),
-        p.E23_MPa === null ? '' : String(p.E23_MPa),
-        p.name,
-      ]);
+      const rows = listed.map((f) => {
+        const E23 = listedModulusMPa(f);
+        return [
+          f.params.id,
+          f.params.kind,
+          String(displayedParams(f.params).Tg_C),
+          f.params.Tm_C === null ? '' : String(f.params.Tm_C),
+          E23 === null ? '' : f.params.filler === 'none' ? String(E23) : significant(E23, 2),
+          f.params.name,
+        ];
+      });
       emit(out, v, data, markdownTable(['id', 'kind', 'Tg degC', 'Tm degC', 'E23 MPa', 'name'], rows));
     },
   },

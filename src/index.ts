@@ -38,3 +38,5 @@ export * from './input/datasheet.js';
 export * from './input/material.js';
 export * from './input/list.js';
 export * from './input/cycle.js';
+export * from './material/filler.js';
+export * from './material/grade.js';

@@ -232,7 +232,8 @@ describe('Office adapter through the real Excel client', () => {
     const rows = blockRows(f);
     expect(host.at('Sheet1', 'F1')?.value).toBe('field');
     expect(host.at('Sheet1', 'G2')?.value).toBe('PA66-cond');
-    expect(host.at('Sheet1', 'H6')?.value).toBe('degC');
+    // Tg_C's unit, below the text fields id, name, kind, shiftLaw and filler.
+    expect(host.at('Sheet1', 'H7')?.value).toBe('degC');
     const back = await port.read({ sheet: 'Sheet1', box: { top: 1, left: 5, bottom: rows.length - 1, right: 5 } });
     expect(back.values.map((r) => r[0])).toEqual(rows.slice(1).map((r) => r[0]));
     expect(host.at('Sheet1', `F${rows.length + 1}`)).toBeUndefined();

@@ -13,6 +13,8 @@ import fc from 'fast-check';
 import {
   ALL_KEYS,
   FAMILIES,
+  FILLER_CODES,
+  FILLERS,
   KINDS,
   NUMERIC_FIELDS,
   type FieldSpec,
@@ -528,7 +530,7 @@ export function paramRecord(
     const sc = k === 'semicrystalline';
     const free: Record<string, fc.Arbitrary<number>> = {};
     for (const f of NUMERIC_FIELDS) {
-      if (['Tg_C', 'Tm_C', 'E23_MPa', 'Eg_MPa', 'crystalContinuity'].includes(f.key) || f.optional) continue;
+      if (['Tg_C', 'Tm_C', 'E23_MPa', 'Eg_MPa', 'crystalContinuity', 'fillerMass_pct'].includes(f.key) || f.optional) continue;
       free[f.key] = f.kinds.includes(k) ? fieldValue(f) : fc.constant(f.min);
     }
     const tg = fieldValue(spec('Tg_C'), -150, sc ? 440 : 400);
@@ -540,6 +542,7 @@ export function paramRecord(
         useE23: fc.boolean(),
         E: fc.oneof(fieldValue(spec('E23_MPa'), 50, 20000), fieldValue(spec('E23_MPa'))),
         Eg: fieldValue(spec('Eg_MPa')),
+        density: fieldValue(spec('density_kgm3')),
         u: fc.tuple(
           fc.double({ min: 0, max: 1, noNaN: true }),
           fc.double({ min: 0, max: 1, noNaN: true }),
@@ -548,12 +551,18 @@ export function paramRecord(
         ranges: fc.tuple(fc.boolean(), fc.boolean(), fc.boolean()),
         spread: fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })),
       })
-      .map(({ free, Tg, shiftLaw, useE23, E, Eg, u, ranges, spread }) => {
+      .map(({ free, Tg, shiftLaw, useE23, E, Eg, density, u, ranges, spread }) => {
         const p: MaterialParams = {
           id: 'prop',
           name: 'property-test record',
           kind: k,
           shiftLaw,
+          // Unfilled: filledRecord (below) draws the filler fields.
+          filler: 'none',
+          fillerMass_pct: 0,
+          fillerAspect: null,
+          fillerAlign: null,
+          density_kgm3: density,
           Tg_C: Tg,
           Tm_C: null,
           E23_MPa: useE23 ? E : null,
@@ -590,6 +599,31 @@ export function paramRecord(
         return p;
       });
   });
+}
+
+/**
+ * A valid record with a filler: any supported code, a mass percent up to its maximum, the default or a drawn
+ * aspect ratio and orientation (matrix drawn by paramRecord).
+ */
+export function filledRecord(
+  kind?: Kind,
+  shiftLaws: readonly MaterialParams['shiftLaw'][] = ['hybrid', 'arrhenius'],
+): fc.Arbitrary<MaterialParams> {
+  return fc
+    .record({
+      p: paramRecord(kind, shiftLaws),
+      code: fc.constantFrom(...FILLER_CODES),
+      u: fc.double({ min: 0, max: 1, noNaN: true }),
+      aspect: fc.option(fieldValue(spec('fillerAspect')), { nil: null }),
+      align: fc.option(fieldValue(spec('fillerAlign')), { nil: null }),
+    })
+    .map(({ p, code, u, aspect, align }) => ({
+      ...p,
+      filler: code,
+      fillerMass_pct: Math.min(FILLERS[code].massPct[1], u * FILLERS[code].massPct[1]),
+      fillerAspect: aspect,
+      fillerAlign: align,
+    }));
 }
 
 /** Values a loose record (a worksheet block, a JSON file) may hold for one key. */

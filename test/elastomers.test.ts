@@ -89,7 +89,7 @@ describe('the bundled elastomers', () => {
       // with E = 3 rho R T / Mc (Flory, Principles of Polymer Chemistry, 1953; Treloar 1975).
       const p = f.params;
       const t = 1000 * H;
-      const Er = (3 * p.density_kgm3 * GAS_CONSTANT * (23 + C)) / p.Mc_kgmol / 1e6;
+      const Er = (3 * (p.density_kgm3 ?? NaN) * GAS_CONSTANT * (23 + C)) / p.Mc_kgmol / 1e6;
       expectClose(modulusMPa(m, t, 23 + C), (1 + t) ** -p.creepN * Er, { rel: 1e-6, source: 'closed form of model.ts' });
     });
 

@@ -5,6 +5,7 @@
 import { ALL_KEYS, KINDS, NUMERIC_FIELDS, type FieldSpec, type Kind, type MaterialParams } from '../../src/material/params.js';
 import { paramsToRecord } from '../../src/material/resolve.js';
 import { SHIFT_LAWS } from '../../src/material/shift.js';
+import { FILLER_CODES } from '../../src/material/filler.js';
 import type { OutCell } from './cells.js';
 
 /** Header row of the block; a range passed back may include it or leave it out. */
@@ -15,6 +16,7 @@ const TEXT_FIELD_INFO: Record<string, { unit: string; description: string }> = {
   name: { unit: 'text', description: 'full name of the material' },
   kind: { unit: 'text', description: `one of ${KINDS.join(', ')}` },
   shiftLaw: { unit: 'text', description: `time-temperature shift law: ${SHIFT_LAWS.join(', ')} (hybrid = Arrhenius below Tg, WLF above)` },
+  filler: { unit: 'text', description: `none, or an ISO 1043-2 filler code: ${FILLER_CODES.join(', ')}` },
 };
 
 const FIELD_BY_KEY = new Map<string, FieldSpec>(NUMERIC_FIELDS.map((f) => [f.key, f]));

@@ -1,5 +1,5 @@
 /**
- * Kept whole at about 600 lines: the calibration is one algorithm (inputs, choice of free parameters, rounds of
+ * Kept whole at about 630 lines: the calibration is one algorithm (inputs, choice of free parameters, rounds of
  * least squares, the check of what moved) whose steps share private state and read best in order.
  *
  * Datasheet calibration: from a few datasheet numbers (short-term modulus at 23 degC, HDT at one or
@@ -23,8 +23,9 @@ import { compileMaterial, DATASHEET_TIME_S, modulusMPa, T23_K, type Material } f
 import { fieldSpec, NUMERIC_FIELDS, type Kind, type MaterialParams, type NumericField } from '../material/params.js';
 import { isPronySpec } from '../material/pronymaterial.js';
 import type { MaterialInput } from '../material/resolve.js';
-import { getFamily } from '../material/families.js';
 import { isHumid } from '../material/humidity.js';
+import { getGrade } from '../material/grade.js';
+import { FILLERS, FLOW_ALIGN } from '../material/filler.js';
 import { KELVIN_OFFSET } from '../base/units.js';
 import { longTermChanges, LONG_TERM_S, type LongTermChange } from './longterm.js';
 
@@ -157,6 +158,17 @@ export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: Nu
   },
 };
 
+/**
+ * A filled grade's datasheet modulus and HDT move first with the filler (set here: the matrix is the bundled
+ * family's, known better than how a given grade's fibres are oriented and broken): the 23 degC modulus with the
+ * orientation, then the aspect ratio; an HDT with the aspect ratio (it sets how much the fibres stiffen the
+ * softened matrix), then the orientation; only then with the matrix parameters.
+ */
+export const FILLER_FREE_PREFERENCE: { modulus: NumericField[]; hdt: NumericField[] } = {
+  modulus: ['fillerAlign', 'fillerAspect'],
+  hdt: ['fillerAspect', 'fillerAlign'],
+};
+
 /** Search bounds of a free parameter (tighter than the record's validity range where noted). */
 function boundsOf(field: NumericField, p: MaterialParams): { min: number; max: number; log: boolean } {
   const spec = fieldSpec(field);
@@ -179,6 +191,12 @@ function boundsOf(field: NumericField, p: MaterialParams): { min: number; max: n
     case 'C1':
     case 'C2_K':
       return { min: spec.min, max: spec.max, log: false };
+    // A datasheet modulus is along flow: from random in the plane to fully aligned (set here).
+    case 'fillerAlign':
+      return { min: 0.5, max: 1, log: false };
+    // Aspect ratios after moulding (set here: 3 to 100 spans short-glass, carbon and platelet fillers, from memory).
+    case 'fillerAspect':
+      return { min: 3, max: 100, log: true };
     default:
       return { min: spec.min, max: spec.max, log: spec.min > 0 };
   }
@@ -213,7 +231,7 @@ function startParams(start: MaterialInput): MaterialParams {
   if (isPronySpec(start)) {
     throw new InputError('start', 'a Prony material cannot be calibrated from datasheet points; start from a family or a parameter record');
   }
-  const p = typeof start === 'string' ? getFamily(start).params : start;
+  const p = typeof start === 'string' ? getGrade(start).params : start;
   compileMaterial(p);
   return { ...p };
 }
@@ -261,6 +279,12 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   checkPositive(inputs.TgK, 'Tg');
   checkPositive(inputs.TmK, 'Tm');
   const base: MaterialParams = withoutRanges(p0);
+  const filled = p0.filler !== 'none' && p0.fillerMass_pct > 0;
+  if (p0.filler !== 'none' && filled) {
+    // The filler's defaults written out, so the fit starts from them and the record shows what it used.
+    base.fillerAspect = p0.fillerAspect ?? FILLERS[p0.filler].aspect;
+    base.fillerAlign = p0.fillerAlign ?? FLOW_ALIGN;
+  }
   base.id = options.id ?? `${p0.id}-cal`;
   base.name = options.name ?? `${p0.name} (calibrated)`;
   const direct = new Map<NumericField, string>();
@@ -295,7 +319,18 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   const modulusAt23 = (m: Material): number => modulusMPa(m, DATASHEET_TIME_S, T23_K);
   if (inputs.modulus23MPa !== undefined) {
     const E = inputs.modulus23MPa;
-    if (p0.E23_MPa !== null && !humid) {
+    if (filled) {
+      // E23_MPa of a filled record is the matrix's: the grade's modulus is fitted, through the filler first.
+      fits.push({
+        label: 'modulus at 23 degC',
+        unit: 'MPa',
+        given: E,
+        tolerance: `${MODULUS_TOLERANCE * 100} %`,
+        evaluate: modulusAt23,
+        scale: (r) => Math.log((r ?? 0) / E) / MODULUS_TOLERANCE,
+        candidates: [...FILLER_FREE_PREFERENCE.modulus, p0.E23_MPa !== null ? 'E23_MPa' : 'Eg_MPa'],
+      });
+    } else if (p0.E23_MPa !== null && !humid) {
       base.E23_MPa = E;
       direct.set('E23_MPa', 'modulus at 23 degC');
       residualRows.push({ input: 'modulus at 23 degC', unit: 'MPa', given: E, via: 'E23_MPa', evaluate: modulusAt23 });
@@ -326,7 +361,7 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
       tolerance: `${HDT_TOLERANCE_K} K`,
       evaluate: (m) => simulateHdt(m, h.stressMPa).temperatureC,
       scale: (r) => ((r ?? HDT_MAX_C) - given) / HDT_TOLERANCE_K,
-      candidates: i === 0 ? pref.hdtHigh : pref.hdtLow,
+      candidates: [...(filled ? FILLER_FREE_PREFERENCE.hdt : []), ...(i === 0 ? pref.hdtHigh : pref.hdtLow)],
     });
   });
   for (const d of inputs.moduli ?? []) {
@@ -491,7 +526,7 @@ function familyColumns(family: MaterialParams | null, field: NumericField): Pick
 function familyDefaults(p: MaterialParams): MaterialParams | null {
   for (const id of [p.id, p.id.replace(/-cal$/i, '')]) {
     try {
-      const f = getFamily(id).params;
+      const f = getGrade(id).params;
       if (f.kind === p.kind) return f;
     } catch {
       // not a bundled family

@@ -18,7 +18,7 @@ import { fieldSpec, type MaterialParams, type NumericField } from '../material/p
 import { pronyStorageMPa, qualityFromRmsLog10, type FitQuality } from '../material/prony.js';
 import { isPronySpec } from '../material/pronymaterial.js';
 import type { MaterialInput } from '../material/resolve.js';
-import { getFamily } from '../material/families.js';
+import { getGrade } from '../material/grade.js';
 import { shiftLog10 } from '../material/shift.js';
 import type { DmaSweep } from './testdata.js';
 
@@ -108,7 +108,7 @@ export function fitDma(start: MaterialInput, sweep: DmaSweep, options: DmaFitOpt
   if (!(options.frequencyHz > 0) || !Number.isFinite(options.frequencyHz)) {
     throw new InputError('frequency', `must be a positive frequency in Hz, got ${options.frequencyHz}`);
   }
-  const p0 = typeof start === 'string' ? getFamily(start).params : start;
+  const p0 = typeof start === 'string' ? getGrade(start).params : start;
   compileMaterial(p0);
   const base: MaterialParams = {
     ...p0,

@@ -4,7 +4,8 @@
  * the names of parameters to fit. Every problem is an InputError naming the input.
  */
 import { InputError, ParameterError, UnknownFamilyError } from '../base/errors.js';
-import { getFamily, type Family } from '../material/families.js';
+import type { Family } from '../material/families.js';
+import { getGrade } from '../material/grade.js';
 import { compileMaterial, type Material } from '../material/model.js';
 import { NUMERIC_FIELDS, type MaterialParams, type NumericField } from '../material/params.js';
 import { compilePronyMaterial, isPronyRecord, isPronyTable, pronyFromRecord, pronyFromTable } from '../material/pronymaterial.js';
@@ -26,9 +27,12 @@ export class UnknownFamilyInput extends InputError {
   }
 }
 
-export const FAMILY_WHAT = 'a family symbol such as "PC", "PA66-cond" or "PA66 at 70 % RH"';
+export const FAMILY_WHAT = 'a family symbol such as "PC", "PA66-cond" or "PA66 at 70 % RH", or a filled grade such as "PBT-GF30"';
 
-/** A bundled family by its ISO 1043 symbol (case and surrounding spaces do not matter). */
+/**
+ * A bundled family by its ISO 1043 symbol, or a filled grade `<family>-<filler code><mass %>` (grade.ts);
+ * case and surrounding spaces do not matter.
+ */
 export const familyInput: Quantity<Family> = {
   what: FAMILY_WHAT,
   unit: 'symbol',
@@ -36,10 +40,12 @@ export const familyInput: Quantity<Family> = {
     const raw = trimmed(input);
     if (typeof raw !== 'string') throw new InputError(name, `expects ${FAMILY_WHAT}, got the number ${raw}`);
     try {
-      return getFamily(raw);
+      return getGrade(raw);
     } catch (e) {
       // A humidity clause that does not read, or one given twice or to a material that takes up no water.
       if (e instanceof InputError) throw new InputError(name, e.problem);
+      // A filler code that is not supported, or a mass percent outside its range: the words say which.
+      if (e instanceof ParameterError) throw new InputError(name, e.problem);
       if (!(e instanceof UnknownFamilyError)) throw e;
       const near = e.suggestions.length > 0 ? `; did you mean ${e.suggestions.map((s) => `"${s}"`).join(', ')}?` : '';
       throw new UnknownFamilyInput(name, `unknown family ${showRaw(raw.trim())}${near}`, e.suggestions);

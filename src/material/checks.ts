@@ -55,3 +55,30 @@ export const FAMILY_CHECKS: readonly FamilyCheck[] = [
   { id: 'PTFE', hdtA_C: 50, hdtB_C: 120, hot: null, creep1000h_MPa: 200, source: DESIGN },
   { id: 'PVDF', hdtA_C: 110, hdtB_C: 148, hot: null, creep1000h_MPa: null, source: DATASHEET },
 ];
+
+/** The check values of one filled grade (degC, MPa): its 23 degC short-term modulus and HDT/A. */
+export interface FilledCheck {
+  readonly id: string;
+  /** ISO 527 tensile modulus at 23 degC, dry as moulded for polyamides, MPa. */
+  readonly E23_MPa: number;
+  /** ISO 75-2 HDT/A (1.80 MPa), degC; null where nothing reliable is recalled. */
+  readonly hdtA_C: number | null;
+  readonly source: string;
+}
+
+const FILLED_DATASHEET =
+  'common practice, from memory: typical datasheet values of the filled grade (ISO 527 modulus at 23 degC, dry as moulded for polyamides; ISO 75-2 HDT/A); glass fibre lifts a semi-crystalline resin toward its Tm, an amorphous one by a few K';
+
+/** Check values of the common filled grades (grade.ts FILLED_GRADE_IDS), in that order. */
+export const FILLED_CHECKS: readonly FilledCheck[] = [
+  { id: 'PA66-dry-GF30', E23_MPa: 10000, hdtA_C: 250, source: FILLED_DATASHEET },
+  { id: 'PA6-dry-GF30', E23_MPa: 9500, hdtA_C: 205, source: FILLED_DATASHEET },
+  { id: 'PBT-GF30', E23_MPa: 10000, hdtA_C: 205, source: FILLED_DATASHEET },
+  { id: 'PP-GF30', E23_MPa: 6000, hdtA_C: 145, source: `${FILLED_DATASHEET}; chemically coupled grades` },
+  { id: 'PPS-GF40', E23_MPa: 14000, hdtA_C: 265, source: FILLED_DATASHEET },
+  { id: 'POM-GF25', E23_MPa: 8500, hdtA_C: 160, source: FILLED_DATASHEET },
+  { id: 'PC-GF10', E23_MPa: 3800, hdtA_C: 135, source: FILLED_DATASHEET },
+  { id: 'PA66-dry-MD40', E23_MPa: 6500, hdtA_C: null, source: FILLED_DATASHEET },
+  { id: 'PEEK-CF30', E23_MPa: 23000, hdtA_C: 315, source: FILLED_DATASHEET },
+  { id: 'PP-TD20', E23_MPa: 2600, hdtA_C: 67, source: FILLED_DATASHEET },
+];

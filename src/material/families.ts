@@ -52,6 +52,8 @@ export const SRC = {
   humidity: 'set here: the state of the entry (0 % RH dry as moulded, 50 % RH conditioned at 23 degC, ISO 291 standard atmosphere)',
   noWater: 'set here: neutral, the model takes no water into this family',
   isotherm: 'from memory: power-law isotherm through typical datasheet water contents at 23 degC / 50 % RH and at saturation (humidity.ts)',
+  unfilled: 'set here: the bundled families are unfilled grades (0 %); filled grades are built from them (grade.ts)',
+  density: 'common practice, from memory: typical unfilled-grade datasheet density (ISO 1183), for the filler volume fraction',
   disputedTg: 'disputed in the literature (from memory); the value used is the one that governs stiffness of moulded parts',
   rubberRelaxation:
     'from memory: filled rubbers lose 2 to 5 % of stress per decade of time at room temperature (Gent (ed.), Engineering with Rubber, 3rd ed. 2012, stress relaxation chapter); 0.013 gives 3 % per decade',
@@ -403,6 +405,35 @@ const ENTRIES: Entry[] = [
   },
 ];
 
+/**
+ * Density of the unfilled resin, kg/m3, for the filler volume fraction of filled grades (filler.ts). Common
+ * practice, from memory: typical unfilled-grade datasheet densities (ISO 1183). Kept in one map, apart from
+ * the entries, and merged in toFamily; crosslinked entries carry theirs in `set` (network modulus).
+ */
+const MATRIX_DENSITY: Readonly<Record<string, number>> = {
+  'PE-HD': 955,
+  'PE-LD': 920,
+  PP: 905,
+  PS: 1050,
+  PMMA: 1190,
+  PC: 1200,
+  'PVC-U': 1400,
+  ABS: 1050,
+  PSU: 1240,
+  PESU: 1370,
+  PEI: 1270,
+  'PA6-dry': 1130,
+  'PA66-dry': 1140,
+  POM: 1410,
+  'POM-H': 1420,
+  PET: 1380,
+  PBT: 1310,
+  PPS: 1350,
+  PEEK: 1300,
+  PTFE: 2170,
+  PVDF: 1780,
+};
+
 const BASE_SOURCES: SourceMap = {
   Tg_C: SRC.handbookTg,
   Tg_low_C: SRC.handbookTg,
@@ -433,6 +464,8 @@ const BASE_SOURCES: SourceMap = {
   humidity_pct: SRC.humidity,
   waterSat: SRC.noWater,
   sorptionN: SRC.noWater,
+  density_kgm3: SRC.density,
+  fillerMass_pct: SRC.unfilled,
 };
 
 /** A record with every field empty (null) or at its neutral default; the base of every family. */
@@ -461,6 +494,10 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
     creepEa_kJmol: 60,
     density_kgm3: 1000,
     Mc_kgmol: 1,
+    filler: 'none',
+    fillerMass_pct: 0,
+    fillerAspect: null,
+    fillerAlign: null,
     glassySlope_perK: 0,
     fictiveExcess_K: 0,
     tnmX: 1,
@@ -483,6 +520,7 @@ function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
   if (e.Tm) [p.Tm_C, p.Tm_low_C, p.Tm_high_C] = e.Tm;
   if (e.E23) [p.E23_MPa, p.E23_low_MPa, p.E23_high_MPa] = e.E23;
   if (e.Eg !== undefined) p.Eg_MPa = e.Eg;
+  if (e.kind !== 'crosslinked') p.density_kgm3 = MATRIX_DENSITY[e.id] ?? null;
   Object.assign(p, e.set);
   if (e.conditioned) {
     // The dry grade's record at a humidity: Tg_C and E23_MPa stay the dry values, the wet Tg follows on compile.
@@ -498,8 +536,8 @@ function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
 }
 
 const UNUSED_BY_KIND: Record<Kind, ReadonlySet<NumericField>> = {
-  amorphous: new Set<NumericField>(['crystallinity', 'crystalContinuity', 'meltSharpness', 'density_kgm3', 'Mc_kgmol', 'Tm_C']),
-  semicrystalline: new Set<NumericField>(['density_kgm3', 'Mc_kgmol']),
+  amorphous: new Set<NumericField>(['crystallinity', 'crystalContinuity', 'meltSharpness', 'Mc_kgmol', 'Tm_C']),
+  semicrystalline: new Set<NumericField>(['Mc_kgmol']),
   crosslinked: new Set<NumericField>([
     'crystallinity',
     'crystalContinuity',

@@ -28,6 +28,7 @@ import { pronyModulusMPa, pronyGlassyMPa, type PronySeries } from './prony.js';
 import { brentRoot } from '../numeric/roots.js';
 import { arrheniusLog10, GAS_CONSTANT, shiftLog10, WLF_SINGULARITY_MARGIN_K, type ShiftConstants } from './shift.js';
 import { KELVIN_OFFSET } from '../base/units.js';
+import { buildComposite, compositeModulusMPa, FILLERS, FLOW_ALIGN, type Composite } from './filler.js';
 
 /** The reference temperature of the datasheet modulus and of the slow-creep clock, kelvin (ISO 291 standard atmosphere 23 degC). */
 export const T23_K = 23 + KELVIN_OFFSET;
@@ -101,6 +102,11 @@ export interface Material {
    * temperature; null for the four-region model.
    */
   readonly prony: PronySeries | null;
+  /**
+   * A filled grade (filler.ts): every entry point returns the composite modulus from the matrix modulus at
+   * the same (t, T); the other fields describe the matrix. Null for an unfilled material.
+   */
+  readonly composite: Composite | null;
 }
 
 /** Contributions behind one evaluation, for the region and for tests. */
@@ -120,18 +126,27 @@ export function compileMaterial(params: MaterialParams): Material {
   const cached = compiled.get(params);
   if (cached) return cached;
   validateParams(params);
-  let material: Material;
+  let matrix: Material;
   if (isHumid(params)) {
     // Water lowers only Tg: the glassy and crystal moduli are the dry record's (Tg_C and E23_MPa are dry values).
     const dry = compileMaterial(dryRecord(params));
     const Eg23 = dry.EgMPa / Math.exp(params.glassySlope_perK * GLASS_SLOPE_SPAN_K);
-    material = checkGlassy(build(params, Eg23, wetTgC(params)));
+    matrix = checkGlassy(build(params, Eg23, wetTgC(params)));
   } else {
     const base = build(params, params.Eg_MPa ?? 1000);
-    material = params.E23_MPa === null ? checkGlassy(base) : anchorGlassyModulus(base, params.E23_MPa);
+    matrix = params.E23_MPa === null ? checkGlassy(base) : anchorGlassyModulus(base, params.E23_MPa);
   }
+  const material = withFiller(matrix, params);
   compiled.set(params, material);
   return material;
+}
+
+/** The material with its filler's composite constants, the anchored matrix unchanged (E23_MPa is the matrix's). */
+function withFiller(m: Material, p: MaterialParams): Material {
+  if (p.filler === 'none' || p.fillerMass_pct === 0 || p.density_kgm3 === null) return m;
+  const f = FILLERS[p.filler];
+  const composite = buildComposite(p.filler, p.fillerMass_pct, p.density_kgm3, p.fillerAspect ?? f.aspect, p.fillerAlign ?? FLOW_ALIGN);
+  return { ...m, composite };
 }
 
 /**
@@ -164,8 +179,9 @@ function build(p: MaterialParams, EgRefMPa: number, TgC = p.Tg_C): Material {
     TmK: p.Tm_C === null ? Infinity : p.Tm_C + KELVIN_OFFSET,
     meltSharpness: p.meltSharpness,
     melt23: p.Tm_C === null ? 0 : (T23_K / (p.Tm_C + KELVIN_OFFSET)) ** p.meltSharpness,
-    networkMPaPerK: p.kind === 'crosslinked' ? (3 * p.density_kgm3 * GAS_CONSTANT) / p.Mc_kgmol / 1e6 : 0,
+    networkMPaPerK: p.kind === 'crosslinked' ? (3 * (p.density_kgm3 ?? 0) * GAS_CONSTANT) / p.Mc_kgmol / 1e6 : 0,
     prony: null,
+    composite: null,
   };
 }
 
@@ -241,7 +257,8 @@ export function checkTemperatureInDomain(m: Material, TK: number, argument: stri
 export function modulusMPa(m: Material, tS: number, TK: number): number {
   const log10aT = shiftLog10(m.shift, TK);
   if (m.prony) return pronyModulusMPa(m.prony, tS / 10 ** log10aT);
-  return modulusParts(m, lnReduced(m, tS, log10aT), creepClock(m, tS, TK), TK, SCRATCH);
+  const E = modulusParts(m, lnReduced(m, tS, log10aT), creepClock(m, tS, TK), TK, SCRATCH);
+  return m.composite ? compositeModulusMPa(m.composite, E) : E;
 }
 
 /** Full evaluation (modulus in MPa, region, contributions) at time t (s) and temperature T (K). */
@@ -353,7 +370,8 @@ function evaluateLn(m: Material, lnX: number, theta: number, TK: number): Evalua
   const p: Parts = { ...SCRATCH };
   const E = modulusParts(m, lnX, theta, TK, p);
   return {
-    modulusMPa: E,
+    // The region is the matrix's: the filler only scales the modulus.
+    modulusMPa: m.composite ? compositeModulusMPa(m.composite, E) : E,
     region: regionOf(m, E, p),
     glassFraction: p.G,
     flowFraction: p.F,

@@ -1,9 +1,13 @@
 /**
+ * Kept whole at about 400 lines: most of it is the field table (one entry per field with its unit, bounds and
+ * words), and the cross-field rules below read it; splitting would separate a field from its checks.
+ *
  * The material parameter record: one flat list of fields, each with its unit, bounds and meaning. The
  * same table drives validation, the worksheet parameter block, the CLI's JSON and the docs.
  */
 import { ParameterError } from '../base/errors.js';
 import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
+import { FILLER_CODES, FILLERS, NO_FILLER, fillerList, type FillerField } from './filler.js';
 
 export type Kind = 'amorphous' | 'semicrystalline' | 'crosslinked';
 export const KINDS: readonly Kind[] = ['amorphous', 'semicrystalline', 'crosslinked'];
@@ -14,6 +18,8 @@ export interface MaterialParams {
   name: string;
   kind: Kind;
   shiftLaw: ShiftLaw;
+  /** ISO 1043-2 filler code, or 'none'. */
+  filler: FillerField;
   Tg_C: number;
   Tm_C: number | null;
   E23_MPa: number | null;
@@ -31,11 +37,14 @@ export interface MaterialParams {
   flowBeta: number;
   creepN: number;
   creepEa_kJmol: number;
-  density_kgm3: number;
+  density_kgm3: number | null;
   Mc_kgmol: number;
   glassySlope_perK: number;
   fictiveExcess_K: number;
   tnmX: number;
+  fillerMass_pct: number;
+  fillerAspect: number | null;
+  fillerAlign: number | null;
   Tg_low_C: number | null;
   Tg_high_C: number | null;
   Tm_low_C: number | null;
@@ -210,9 +219,9 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     unit: 'kg/m3',
     min: 500,
     max: 3000,
-    optional: false,
-    kinds: XL,
-    description: 'density, for the network modulus 3 rho R T / Mc',
+    optional: true,
+    kinds: ALL,
+    description: 'density of the unfilled resin: for the network modulus 3 rho R T / Mc (crosslinked) and the filler volume fraction',
   },
   { key: 'Mc_kgmol', unit: 'kg/mol', min: 0.05, max: 100, optional: false, kinds: XL, description: 'molar mass between crosslinks' },
   {
@@ -244,6 +253,34 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     kinds: ALL,
     neutral: 1,
     description: 'TNM nonlinearity x of the HDT bar (1 = no memory of its fictive temperature)',
+  },
+  {
+    key: 'fillerMass_pct',
+    unit: '%',
+    min: 0,
+    max: 70,
+    optional: false,
+    kinds: ALL,
+    neutral: 0,
+    description: 'filler content, mass percent of the grade (0 = unfilled)',
+  },
+  {
+    key: 'fillerAspect',
+    unit: '-',
+    min: 1,
+    max: 1000,
+    optional: true,
+    kinds: ALL,
+    description: 'filler length / diameter (fibres) or width / thickness (platelets) after moulding; empty = the filler default',
+  },
+  {
+    key: 'fillerAlign',
+    unit: 'fraction',
+    min: 0,
+    max: 1,
+    optional: true,
+    kinds: ALL,
+    description: `fibre orientation along the load, a11 in the plane: empty = 0.75, along flow in a moulded plaque (the datasheet direction); 0.25 across flow, 0.5 random in the plane`,
   },
   { key: 'Tg_low_C', unit: 'degC', min: -150, max: 400, optional: true, kinds: ALL, description: 'low end of the Tg range, for the band' },
   {
@@ -308,7 +345,10 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
   },
 ];
 
-export const TEXT_FIELDS = ['id', 'name', 'kind', 'shiftLaw'] as const;
+export const TEXT_FIELDS = ['id', 'name', 'kind', 'shiftLaw', 'filler'] as const;
+
+/** The `filler` values a record accepts: 'none' or a supported ISO 1043-2 code. */
+export const FILLER_VALUES: readonly FillerField[] = [NO_FILLER, ...FILLER_CODES];
 
 const FIELD_BY_KEY = new Map(NUMERIC_FIELDS.map((f) => [f.key, f]));
 
@@ -329,6 +369,13 @@ export function validateParams(p: MaterialParams): MaterialParams {
   if (!KINDS.includes(p.kind)) throw new ParameterError('kind', `must be one of ${KINDS.join(', ')}, got '${String(p.kind)}'`, p.kind);
   if (!SHIFT_LAWS.includes(p.shiftLaw)) {
     throw new ParameterError('shiftLaw', `must be one of ${SHIFT_LAWS.join(', ')}, got '${String(p.shiftLaw)}'`, p.shiftLaw);
+  }
+  if (!FILLER_VALUES.includes(p.filler)) {
+    throw new ParameterError(
+      'filler',
+      `must be ${NO_FILLER} or one of the ISO 1043-2 codes ${fillerList()}, got '${String(p.filler)}'`,
+      p.filler,
+    );
   }
   for (const f of NUMERIC_FIELDS) {
     const v = p[f.key];
@@ -367,10 +414,37 @@ export function validateParams(p: MaterialParams): MaterialParams {
       p.humidity_pct,
     );
   }
+  if (p.kind === 'crosslinked' && p.density_kgm3 === null) {
+    throw new ParameterError('density_kgm3', `is required for a crosslinked material (${fieldSpec('density_kgm3').description})`);
+  }
+  checkFiller(p);
   checkRange(p, 'Tg_low_C', 'Tg_C', 'Tg_high_C');
   checkRange(p, 'Tm_low_C', 'Tm_C', 'Tm_high_C');
   checkRange(p, 'E23_low_MPa', 'E23_MPa', 'E23_high_MPa');
   return p;
+}
+
+function checkFiller(p: MaterialParams): void {
+  if (p.filler === NO_FILLER) {
+    if (p.fillerMass_pct !== 0) {
+      throw new ParameterError(
+        'fillerMass_pct',
+        `${p.fillerMass_pct} % needs a filler code in the field filler (${fillerList()})`,
+        p.fillerMass_pct,
+      );
+    }
+    return;
+  }
+  const max = FILLERS[p.filler].massPct[1];
+  if (p.fillerMass_pct > max) {
+    throw new ParameterError('fillerMass_pct', `${p.fillerMass_pct} % is above the ${max} % supported for ${p.filler}`, p.fillerMass_pct);
+  }
+  if (p.density_kgm3 === null) {
+    throw new ParameterError(
+      'density_kgm3',
+      'is required for a filled material (the matrix density turns the filler mass percent into a volume fraction)',
+    );
+  }
 }
 
 function checkRange(p: MaterialParams, low: NumericField, mid: NumericField, high: NumericField): void {

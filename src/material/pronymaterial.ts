@@ -173,6 +173,7 @@ export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
     melt23: 0,
     networkMPaPerK: 0,
     prony: series,
+    composite: null,
   };
   compiled.set(spec, material);
   return material;

@@ -1,17 +1,19 @@
 /** Turning what a user gives (a family id or a parameter record) into a compiled material. */
 import { InputError, ParameterError } from '../base/errors.js';
-import { editDistance, getFamily } from './families.js';
+import { editDistance } from './families.js';
+import { getGrade } from './grade.js';
 import { compileMaterial, type Material } from './model.js';
-import { KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
+import { FILLER_VALUES, KINDS, NUMERIC_FIELDS, TEXT_FIELDS, type Kind, type MaterialParams } from './params.js';
+import { fillerList, NO_FILLER, type FillerField } from './filler.js';
 import { compilePronyMaterial, isPronySpec, isPronyTable, pronyFromTable, type PronyMaterialSpec } from './pronymaterial.js';
 import { SHIFT_LAWS, type ShiftLaw } from './shift.js';
 
-/** A family id (case-insensitive), a parameter record, or a Prony-series material. */
+/** A family id or filled grade (case-insensitive), a parameter record, or a Prony-series material. */
 export type MaterialInput = string | MaterialParams | PronyMaterialSpec;
 
 /** Compiles a family id, a parameter record or a Prony material into a material. */
 export function resolveMaterial(input: MaterialInput): Material {
-  if (typeof input === 'string') return compileMaterial(getFamily(input).params);
+  if (typeof input === 'string') return compileMaterial(getGrade(input).params);
   if (isPronySpec(input)) return compilePronyMaterial(input);
   return compileMaterial(input);
 }
@@ -41,8 +43,18 @@ export function paramsFromRecord(record: Readonly<Record<string, unknown>>): Mat
   if (!SHIFT_LAWS.includes(shiftLaw as ShiftLaw)) {
     throw new ParameterError('shiftLaw', `must be one of ${SHIFT_LAWS.join(', ')}, got '${shiftLaw}'`, shiftLaw);
   }
+  // Codes in any case; empty is unfilled, so blocks written before fillers existed keep working.
+  const fillerText = text('filler', NO_FILLER);
+  const filler = fillerText.toLowerCase() === NO_FILLER ? NO_FILLER : fillerText.toUpperCase();
+  if (!FILLER_VALUES.includes(filler as FillerField)) {
+    throw new ParameterError(
+      'filler',
+      `must be ${NO_FILLER} or one of the ISO 1043-2 codes ${fillerList()}, got '${fillerText}'`,
+      fillerText,
+    );
+  }
   const id = text('id', 'custom');
-  const out: Record<string, unknown> = { id, name: text('name', id), kind, shiftLaw };
+  const out: Record<string, unknown> = { id, name: text('name', id), kind, shiftLaw, filler };
   for (const f of NUMERIC_FIELDS) {
     const v = record[f.key];
     if (v === undefined || v === null || v === '') {
