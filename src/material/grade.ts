@@ -1,11 +1,13 @@
 /**
  * Grades as datasheets name them: a bundled family, optionally followed by an ISO 1043-2 filler code and
- * its mass percent (`PBT-GF30`, `PP-TD20`, `PA66-dry-GF30`, `PEEK-CF30`). The base is resolved by getFamily,
- * then the filler is applied; the matrix parameters are the base family's unchanged.
+ * its mass percent (`PBT-GF30`, `PP-TD20`, `PA66-dry-GF30`, `PEEK-CF30`), and for a polyamide optionally a
+ * closing humidity clause (`PA66-GF30 at 70 % RH`; a bare `PA66` base is taken at 50 % RH). The base, with the
+ * humidity, is resolved by getFamily, then the filler is applied; the matrix parameters are the base's unchanged.
  */
 import { ParameterError, UnknownFamilyError } from '../base/errors.js';
 import { displayedParams, FAMILIES, getFamily, type Family } from './families.js';
 import { FILLERS, fillerList, fillerOf } from './filler.js';
+import { splitHumidity } from './humidity.js';
 import { compileMaterial, DATASHEET_TIME_S, modulusMPa, T23_K } from './model.js';
 
 /** `<base>-<two letters><mass percent>`, the filler clause at the end. */
@@ -25,7 +27,9 @@ export function getGrade(text: string): Family {
 }
 
 function parseGrade(text: string): Family {
-  const m = GRADE.exec(text);
+  // A humidity clause closes the text ("PA66-GF30 at 50 % RH"): it applies to the matrix, so it goes with the base.
+  const { symbol, rhPct } = splitHumidity(text);
+  const m = GRADE.exec(symbol);
   if (!m) return getFamily(text);
   const [, baseText = '', codeText = '', massText = ''] = m;
   const filler = fillerOf(codeText);
@@ -38,7 +42,7 @@ function parseGrade(text: string): Family {
   }
   let base: Family;
   try {
-    base = getFamily(baseText);
+    base = getFamily(rhPct === null ? baseText : `${baseText} at ${rhPct} % RH`);
   } catch (e) {
     if (!(e instanceof UnknownFamilyError)) throw e;
     throw new UnknownFamilyError(
@@ -55,7 +59,9 @@ function parseGrade(text: string): Family {
   if (base.params.density_kgm3 === null) {
     throw new ParameterError('density_kgm3', `the family ${base.params.id} has no density, so "${text}" cannot be built`);
   }
-  const id = `${base.params.id}-${filler.code}${mass}`;
+  // A humid base is named "PA66 at 70 % RH": the filler code goes after the symbol, the humidity stays last.
+  const baseId = splitHumidity(base.params.id);
+  const id = `${baseId.symbol}-${filler.code}${mass}${baseId.rhPct === null ? '' : ` at ${baseId.rhPct} % RH`}`;
   return {
     params: Object.freeze({
       ...base.params,
