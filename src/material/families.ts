@@ -431,6 +431,9 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
     crystallinity: 0.5,
     crystalContinuity: 1,
     meltSharpness: 14,
+    crystalModulusRatio: 1,
+    crystalMobility: 1,
+    crystalSlope_perK: null,
     C1: WLF_UNIVERSAL_C1,
     C2_K: WLF_UNIVERSAL_C2_K,
     Ea_kJmol: 300,
@@ -527,12 +530,25 @@ function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
 }
 
 const UNUSED_BY_KIND: Record<Kind, ReadonlySet<NumericField>> = {
-  amorphous: new Set<NumericField>(['crystallinity', 'crystalContinuity', 'meltSharpness', 'density_kgm3', 'Mc_kgmol', 'Tm_C']),
+  amorphous: new Set<NumericField>([
+    'crystallinity',
+    'crystalContinuity',
+    'meltSharpness',
+    'crystalModulusRatio',
+    'crystalMobility',
+    'crystalSlope_perK',
+    'density_kgm3',
+    'Mc_kgmol',
+    'Tm_C',
+  ]),
   semicrystalline: new Set<NumericField>(['density_kgm3', 'Mc_kgmol']),
   crosslinked: new Set<NumericField>([
     'crystallinity',
     'crystalContinuity',
     'meltSharpness',
+    'crystalModulusRatio',
+    'crystalMobility',
+    'crystalSlope_perK',
     'plateau_MPa',
     'flowDecades',
     'flowBeta',
