@@ -64,6 +64,7 @@ export const SRC = {
     'set here: secondary process of the amorphous phase (30 to 100 kJ/mol: Starkweather, Macromolecules 14 (1981) 1277) with creepN to meet the check values',
   constrainedAmorphous:
     'set here: a broad transition of the amorphous phase constrained between the crystals (KWW beta 0.1 to 0.35, WLF C2 240 K at the top of the published range 25 to 240 K, Ferry 1980 Table 11-II; the loss peak of a dry polyamide spans some 50 K, from memory), with tauTg, to meet the HDT/A and hot-modulus checks',
+  crystalNeutral: 'set here: the neutral value, which keeps the model as it was before the field existed',
   meltOnset: 'set here: shape of the melting law between the onset (Tm - 25 K) and Tm, with the HDT/B check value',
 } as const;
 
@@ -677,6 +678,9 @@ const BASE_SOURCES: SourceMap = {
   crystallinity: SRC.crystallinity,
   crystalContinuity: SRC.continuity,
   meltSharpness: SRC.melt,
+  crystalModulusRatio: SRC.crystalNeutral,
+  crystalMobility: SRC.crystalNeutral,
+  crystalSlope_perK: SRC.crystalNeutral,
   glassySlope_perK: SRC.glassySlope,
   fictiveExcess_K: SRC.fictive,
   tnmX: SRC.fictive,
@@ -788,7 +792,9 @@ function toFamily(e: Entry, built: ReadonlyMap<string, Family>): Family {
     Object.assign(p, dry.params, { id: e.id, name: e.name });
     conditionedFrom(dry.params, p, e.conditioned.water);
   }
-  const sources: SourceMap = { ...BASE_SOURCES, ...d.sources, ...e.src };
+  // A conditioned grade's numbers are the dry grade's, and so are their sources (its own entry overrides Tg and E23).
+  const dry = e.conditioned ? built.get(e.conditioned.from)?.sources : undefined;
+  const sources: SourceMap = { ...BASE_SOURCES, ...d.sources, ...dry, ...e.src };
   for (const key of Object.keys(sources) as NumericField[]) {
     if (p[key] === null || !isUsed(key, e.kind)) delete sources[key];
   }
