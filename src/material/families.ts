@@ -27,12 +27,8 @@ export const SRC = {
   creepEa: 'from memory: secondary relaxations 30 to 100 kJ/mol (Starkweather, Macromolecules 14 (1981) 1277)',
   crystallinity: 'from memory: typical crystallinity of moulded parts',
   creepNCheck: 'set here: meets the 1000 h creep modulus at 23 degC the family carries (checks.ts)',
-  crystallinityHdt:
-    'set here within the 25 to 40 % typical of moulded parts (from memory), with meltSharpness, to meet the HDT check values',
   continuity: 'set here: crystals carry load in parallel (Takayanagi phi = 1), so the crystal plateau survives flow of the amorphous phase',
-  melt: 'set here so that the simulated ISO 75 HDT/A and HDT/B (1.80 / 0.45 MPa) come near typical unfilled-grade values (from memory)',
-  creepEaCrystal:
-    'literature: alpha relaxations of semi-crystalline polyethylene, about 110 and 190 kJ/mol; the lower value is used here for the soft semi-crystalline families (set here)',
+  melt: 'set here: shape of the melting law between the onset (Tm - 25 K) and Tm (from memory: the endotherm of a moulded grade spans the last 20 to 30 K below its peak)',
   network: 'from memory: typical network density of the family; E = 3 rho R T / Mc (Flory 1953; Treloar 1975)',
   glassyModulus: 'common practice: glassy modulus of organic polymers, 1 to 4 GPa (Tobolsky 1960, from memory)',
   ferryPS: 'Ferry, Viscoelastic Properties of Polymers, 3rd ed. 1980, Table 11-II: polystyrene (from memory)',
