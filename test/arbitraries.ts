@@ -540,6 +540,7 @@ export function paramRecord(
         useE23: fc.boolean(),
         E: fc.oneof(fieldValue(spec('E23_MPa'), 50, 20000), fieldValue(spec('E23_MPa'))),
         Eg: fieldValue(spec('Eg_MPa')),
+        crystalSlope: fc.option(fieldValue(spec('crystalSlope_perK')), { nil: null }),
         u: fc.tuple(
           fc.double({ min: 0, max: 1, noNaN: true }),
           fc.double({ min: 0, max: 1, noNaN: true }),
@@ -548,7 +549,7 @@ export function paramRecord(
         ranges: fc.tuple(fc.boolean(), fc.boolean(), fc.boolean()),
         spread: fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })),
       })
-      .map(({ free, Tg, shiftLaw, useE23, E, Eg, u, ranges, spread }) => {
+      .map(({ free, Tg, shiftLaw, useE23, E, Eg, crystalSlope, u, ranges, spread }) => {
         const p: MaterialParams = {
           id: 'prop',
           name: 'property-test record',
@@ -559,6 +560,8 @@ export function paramRecord(
           E23_MPa: useE23 ? E : null,
           Eg_MPa: useE23 ? null : Eg,
           crystalContinuity: 1,
+          // Optional: empty means the glassy slope (params.ts); only a semi-crystalline record uses it.
+          crystalSlope_perK: sc ? crystalSlope : null,
           Tg_low_C: null,
           Tg_high_C: null,
           Tm_low_C: null,
