@@ -1,5 +1,5 @@
 /**
- * Kept whole at about 600 lines: it is a data table, and splitting it would separate numbers from their sources.
+ * Kept whole at about 900 lines: it is a data table, and splitting it would separate numbers from their sources.
  *
  * The bundled polymer families, keyed by ISO 1043-1 symbols (elastomers by ISO 1629). Every number
  * carries its source: a handbook, "common practice", "from memory", or "set here" (an estimate made

@@ -1,4 +1,7 @@
 /**
+ * Kept whole at about 410 lines: the evaluation, the anchor solve and the precomputed material share the private
+ * build step and the hot path's scratch record; splitting them would expose both for one file's sake.
+ *
  * The four-region relaxation modulus E_r(t, T) in MPa.
  *
  * Main clock: reduced time xi = t / a_T(T) at Tg (hybrid WLF/Arrhenius). Slow-creep clock: theta =
