@@ -126,7 +126,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     // Three candidates: PC and PBT as families, PP as the block written above (POM is dropped).
     await page.getByRole('button', { name: 'Remove POM (family)' }).click();
     const listed = await page.locator('#candidate-list li').allTextContents();
-    expect(listed.map((t) => t.replace(/Remove$/, ''))).toEqual(['PC (family)', 'PBT (family)', 'Sheet1!D1:G33 (parameter block)']);
+    expect(listed.map((t) => t.replace(/Remove$/, ''))).toEqual(['PC (family)', 'PBT (family)', 'Sheet1!D1:G36 (parameter block)']);
     const before = await page.evaluate(() => window.resinDeratePreview?.workbook.filledCount('Sheet1'));
     await page.click('#write-review');
     await page.waitForSelector('#ask:not([hidden])');
@@ -151,7 +151,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     const materials: [string, string, Material][] = [
       ['PC', '$A7', compileMaterial(getFamily('PC').params)],
       ['PBT', '$A8', compileMaterial(getFamily('PBT').params)],
-      ['PP (Sheet1!D1:G33)', 'Sheet1!$D$1:$G$33', compileMaterial(getFamily('PP').params)],
+      ['PP (Sheet1!D1:G36)', 'Sheet1!$D$1:$G$36', compileMaterial(getFamily('PP').params)],
     ];
     const t = parseTimeS('1000 h');
     const lowestShown: string[] = [];
@@ -196,7 +196,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     const [chart] = charts;
     if (!chart) throw new Error('no chart');
     expect(chart.logY).toBe(true);
-    const labels = ['PC', 'PBT', 'PP (Sheet1!D1:G33)'];
+    const labels = ['PC', 'PBT', 'PP (Sheet1!D1:G36)'];
     expect(chart.series.map((s) => s.label)).toEqual([
       ...labels,
       'At the service temperatures',
@@ -424,7 +424,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.fill('#cal-target', 'Sheet1!J1');
     await page.click('#cal-write');
     await page.waitForSelector('#add-written-block');
-    await expect(page.textContent('#status')).resolves.toMatch(/Wrote the calibrated block PBT-invented to Sheet1!J1:M33/);
+    await expect(page.textContent('#status')).resolves.toMatch(/Wrote the calibrated block PBT-invented to Sheet1!J1:M36/);
     // Chromium's and Node's V8 may differ in the last bits of Math functions, so numbers agree to 1e-9, text exactly.
     const sameEngine = 'the same calibration run in Node (platform floating-point differences only)';
     const expectCell = async (r: number, c: number, value: string | number): Promise<void> => {
@@ -450,8 +450,8 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.click('#add-written-block');
     await page.click('#tab-review');
     const listed = await page.locator('#candidate-list li').allTextContents();
-    expect(listed.map((t) => t.replace(/Remove$/, ''))).toContain('Sheet1!J1:M33 (parameter block)');
-    await page.getByRole('button', { name: 'Remove Sheet1!J1:M33 (parameter block)' }).click();
+    expect(listed.map((t) => t.replace(/Remove$/, ''))).toContain('Sheet1!J1:M36 (parameter block)');
+    await page.getByRole('button', { name: 'Remove Sheet1!J1:M36 (parameter block)' }).click();
     await page.click('#tab-calibrate');
   });
 
