@@ -543,6 +543,7 @@ export function paramRecord(
         E: fc.oneof(fieldValue(spec('E23_MPa'), 50, 20000), fieldValue(spec('E23_MPa'))),
         Eg: fieldValue(spec('Eg_MPa')),
         density: fieldValue(spec('density_kgm3')),
+        crystalSlope: fc.option(fieldValue(spec('crystalSlope_perK')), { nil: null }),
         u: fc.tuple(
           fc.double({ min: 0, max: 1, noNaN: true }),
           fc.double({ min: 0, max: 1, noNaN: true }),
@@ -551,7 +552,7 @@ export function paramRecord(
         ranges: fc.tuple(fc.boolean(), fc.boolean(), fc.boolean()),
         spread: fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })),
       })
-      .map(({ free, Tg, shiftLaw, useE23, E, Eg, density, u, ranges, spread }) => {
+      .map(({ free, Tg, shiftLaw, useE23, E, Eg, density, crystalSlope, u, ranges, spread }) => {
         const p: MaterialParams = {
           id: 'prop',
           name: 'property-test record',
@@ -568,6 +569,8 @@ export function paramRecord(
           E23_MPa: useE23 ? E : null,
           Eg_MPa: useE23 ? null : Eg,
           crystalContinuity: 1,
+          // Optional: empty means the glassy slope (params.ts); only a semi-crystalline record uses it.
+          crystalSlope_perK: sc ? crystalSlope : null,
           Tg_low_C: null,
           Tg_high_C: null,
           Tm_low_C: null,

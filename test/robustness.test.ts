@@ -6,6 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import {
+  MELT_REMAINING_AT_TM,
+  upperBoundMPa,
   apparentTgK,
   bandEstimate,
   blankParams,
@@ -66,7 +68,7 @@ function checkMaterial(m: Material, label: string): void {
       }
       expect(Number.isFinite(E), `${label}: E(${t} s, ${T - C} degC) = ${E}`).toBe(true);
       expect(E).toBeGreaterThanOrEqual(0);
-      expect(E).toBeLessThanOrEqual(m.EgMPa * (1 + 1e-12));
+      expect(E).toBeLessThanOrEqual(upperBoundMPa(m) * (1 + 1e-12));
       expect(E, `${label}: non-increasing in time`).toBeLessThanOrEqual(prev * (1 + 1e-12));
       prev = E;
     }
@@ -304,8 +306,11 @@ describe('regressions found by the property tests', () => {
     const below = evaluateClocks(m, 3600, T23_K - 1e-6);
     const above = evaluateClocks(m, 3600, T23_K + 1e-6);
     expect(Math.abs(below.modulusMPa - above.modulusMPa)).toBeLessThanOrEqual(1e-4 * above.modulusMPa);
-    // The melt tail exp(-(T - Tm) / 2 K) (model.ts): 13 K above Tm leaves exp(-6.5) of the crystals.
-    expectClose(below.crystalRemaining, Math.exp(-6.5), { rel: 1e-5, source: 'melt tail exp(-(T - Tm)/2 K), closed form' });
+    // The melting law (model.ts): 5 % of the crystals left at Tm, then the tail exp(-(T - Tm) / 2 K); 13 K above Tm leaves 0.05 exp(-6.5).
+    expectClose(below.crystalRemaining, MELT_REMAINING_AT_TM * Math.exp(-6.5), {
+      rel: 1e-5,
+      source: 'melting law: 5 % at Tm times the tail exp(-(T - Tm)/2 K), closed form',
+    });
   });
   it('a pure-WLF MAXTEMP no longer fails at the -150 degC end of its bracket', () => {
     const p = { ...blankParams('wlf', 'amorphous'), shiftLaw: 'wlf' as const, Tg_C: 100, Eg_MPa: 2500 };

@@ -1,4 +1,7 @@
 /**
+ * Kept whole at about 410 lines: the evaluation, the anchor solve and the precomputed material share the private
+ * build step and the hot path's scratch record; splitting them would expose both for one file's sake.
+ *
  * The four-region relaxation modulus E_r(t, T) in MPa.
  *
  * Main clock: reduced time xi = t / a_T(T) at Tg (hybrid WLF/Arrhenius). Slow-creep clock: theta =
@@ -7,15 +10,23 @@
  *   terminal flow     F = exp(-(x / 10^flowDecades)^flowBeta)
  *   slow creep        g = (1 + theta)^-creepN                  (bounded power law, Findley style)
  *   amorphous         E = g [(Eg - Ep) G + Ep F]
- *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, Ec = g Eg,
- *                     Ea = amorphous E, lambda phi = X(T), X(T) = X exp(-ln20 [(T/Tm)^m - (T23/Tm)^m])
- *                     above 23 degC (melting; X at and below 23 degC), times exp(-(T - Tm)/2 K) above Tm
- *                     (also below 23 degC when Tm is, so E stays continuous)
- *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113)
+ *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, lambda phi = X r(T),
+ *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113), with
+ *                     Ea = g [(Eg - Ep) G + Ep (F + (1 - F) r)]: no terminal flow while crystals remain (tie
+ *                       chains anchor the amorphous phase; it flows as they melt),
+ *                     Ec = gc k Eg, k = crystalModulusRatio (an effective crystal-phase modulus), and
+ *                       gc = 1 - c + c g, c = crystalMobility: the slow process relaxes the crystals too
+ *                       (alpha_c, chain motion through the crystals, c = 1) or only the amorphous phase
+ *                       (crystal-fixed, c = 0: the slow creep is then a secondary process bounded below by
+ *                       the crystal plateau),
+ *                     r(T) = 1 up to the melting onset Tm - MELT_ONSET_K, exp(-ln20 u^m) with
+ *                       u = (T - Tm + MELT_ONSET_K) / MELT_ONSET_K between onset and Tm (5 % left at Tm),
+ *                       times exp(-(T - Tm) / 2 K) above Tm
  *   crosslinked       E = g [(Eg - Er) G + Er], Er = 3 rho R T / Mc (Flory 1953; Treloar 1975); the
  *                     network relaxes by the slow-creep factor too (physical relaxation of a rubber)
  * Every factor is non-increasing in t and T, so E is too, except the entropic rise of Er with T (for a
  * network E - Er is still non-increasing: (g - 1) Er falls as g falls and Er rises).
+ * E never exceeds upperBoundMPa (the larger of the glassy and crystal moduli at the cold end).
  * With creepN = 0 an amorphous material is thermorheologically simple: E(t, T) = E(t / a_T, Tg).
  * A Prony-series material (pronymaterial.ts, fitted from test curves) is evaluated by the same entry
  * points: E = E_inf + sum E_i exp(-xi / tau_i), with its own shift law.
@@ -37,15 +48,17 @@ export const T23_K = 23 + KELVIN_OFFSET;
  * tensile modulus (0.05 to 0.25 % strain at 1 mm/min) is measured over roughly ten seconds (from memory).
  */
 export const DATASHEET_TIME_S = 10;
-/** Crystalline fraction left at Tm, relative to 23 degC, in the melting law (set here: 5 % survive to the DSC peak). */
+/** Crystalline fraction left at Tm, relative to the intact crystals, in the melting law (set here: 5 % survive to the DSC peak). */
 export const MELT_REMAINING_AT_TM = 0.05;
 const LN_MELT = Math.log(1 / MELT_REMAINING_AT_TM);
 /** Above the melting peak the last crystals go within a few kelvin (set here: an e-fold every 2 K). */
 export const MELT_TAIL_K = 2;
 /**
- * Melting onset below the DSC peak, K: the region is "melting" only from Tm - MELT_ONSET_K up; below it the
- * crystals are intact and what relaxes is the amorphous phase or the crystal alpha_c process ("crystalline").
- * Common practice, from memory: the melting endotherm of a moulded grade begins some 20 to 30 K below its peak.
+ * Melting onset below the DSC peak, K: the crystals stay intact up to Tm - MELT_ONSET_K and melt between it
+ * and Tm, and the region is "melting" only from there up; below it what relaxes is the amorphous phase or the
+ * crystal alpha_c process ("crystalline"). Common practice, from memory: the melting endotherm of a moulded
+ * grade begins some 20 to 30 K below its peak, and typical HDT/B values of POM and PTFE-like grades lie within
+ * 10 to 20 K of the peak, which needs the crystals (nearly) intact there.
  */
 export const MELT_ONSET_K = 25;
 
@@ -93,8 +106,14 @@ export interface Material {
   readonly phi: number;
   readonly TmK: number;
   readonly meltSharpness: number;
-  /** (T23 / Tm)^m, so that the melting law is normalized to the crystallinity at 23 degC. */
-  readonly melt23: number;
+  /** Melting onset Tm - MELT_ONSET_K, K (Infinity without crystals). */
+  readonly meltOnsetK: number;
+  /** Effective crystal-phase modulus / glassy modulus (absent: 1). */
+  readonly crystalRatio?: number;
+  /** Share of the slow-creep process that relaxes the crystal phase, 0 to 1 (absent: 1). */
+  readonly crystalMobility?: number;
+  /** Fall of the crystal-phase modulus per kelvin from Tg to Tm (absent: the glassy slope). */
+  readonly crystalSlope?: number;
   /** 3 rho R / Mc in MPa per kelvin (crosslinked), else 0. */
   readonly networkMPaPerK: number;
   /**
@@ -178,7 +197,10 @@ function build(p: MaterialParams, EgRefMPa: number, TgC = p.Tg_C): Material {
     phi: p.kind === 'semicrystalline' ? p.crystalContinuity : 1,
     TmK: p.Tm_C === null ? Infinity : p.Tm_C + KELVIN_OFFSET,
     meltSharpness: p.meltSharpness,
-    melt23: p.Tm_C === null ? 0 : (T23_K / (p.Tm_C + KELVIN_OFFSET)) ** p.meltSharpness,
+    meltOnsetK: p.Tm_C === null ? Infinity : p.Tm_C + KELVIN_OFFSET - MELT_ONSET_K,
+    crystalRatio: p.kind === 'semicrystalline' ? p.crystalModulusRatio : 1,
+    crystalMobility: p.kind === 'semicrystalline' ? p.crystalMobility : 1,
+    crystalSlope: p.kind === 'semicrystalline' && p.crystalSlope_perK !== null ? p.crystalSlope_perK : p.glassySlope_perK,
     networkMPaPerK: p.kind === 'crosslinked' ? (3 * (p.density_kgm3 ?? 0) * GAS_CONSTANT) / p.Mc_kgmol / 1e6 : 0,
     prony: null,
     composite: null,
@@ -196,6 +218,11 @@ function checkGlassy(m: Material): Material {
     );
   }
   return m;
+}
+
+/** Upper bound of the modulus (MPa): the larger of the glassy and the crystal-phase modulus at the cold end. */
+export function upperBoundMPa(m: Material): number {
+  return m.EgMPa * Math.max(1, m.crystalRatio ?? 1);
 }
 
 /**
@@ -323,26 +350,53 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   }
   const F = Math.exp(-Math.exp(m.flowBeta * (lnX - m.lnFlowRatio)));
   const glassy = g * Math.max(0, Eg - m.plateau) * G;
-  const rubbery = g * m.plateau * F;
-  const Ea = glassy + rubbery;
-  p.F = F;
   p.glassy = glassy;
-  p.rubbery = rubbery;
   if (m.kind === 'amorphous') {
+    const rubbery = g * m.plateau * F;
+    p.F = F;
+    p.rubbery = rubbery;
     p.remaining = 0;
     p.lambda = 0;
-    return Ea;
+    return glassy + rubbery;
   }
-  // The tail applies above Tm even below 23 degC (Tm < 23 degC), so that crystals never outlive their melting point.
-  const melt = TK <= T23_K ? 0 : LN_MELT * ((TK / m.TmK) ** m.meltSharpness - m.melt23);
-  const remaining = Math.exp(-melt - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
-  const Ec = g * m.EgMPa * verticalFactor(m, TK, m.TmK);
+  const remaining = crystalsRemaining(m, TK);
+  // Tie chains through the crystals hold the amorphous phase on its plateau: it flows only as they melt.
+  const anchored = F + (1 - F) * remaining;
+  const rubbery = g * m.plateau * anchored;
+  const Ea = glassy + rubbery;
+  const c = m.crystalMobility ?? 1;
+  const gc = c === 1 ? g : 1 - c + c * g;
+  // A crystal is taken as at least as stiff as the amorphous phase around it, so that losing crystals never stiffens.
+  const Ec = Math.max(gc * (m.crystalRatio ?? 1) * m.EgMPa * crystalFactor(m, TK), Ea);
   const lambda = (m.crystallinity * remaining) / m.phi;
   const series = m.phi === 1 ? Ec : Ea <= 0 ? 0 : 1 / (m.phi / Ec + (1 - m.phi) / Ea);
+  p.F = anchored;
+  p.rubbery = rubbery;
   p.remaining = remaining;
   p.lambda = lambda;
-  p.melting = TK >= m.TmK - MELT_ONSET_K;
+  p.melting = TK >= m.meltOnsetK;
   return lambda * series + (1 - lambda) * Ea;
+}
+
+/**
+ * Vertical factor of the crystal-phase modulus at T (K): the glass's up to Tg, then falling by the crystal slope
+ * up to Tm, constant above. Above Tg the constrained amorphous layers between the lamellae soften over a broad
+ * range (their transition is far broader than the bulk glass's), so the effective crystal-phase modulus falls
+ * faster than the glass did; with the glassy slope this is verticalFactor(m, T, Tm).
+ */
+export function crystalFactor(m: Material, TK: number): number {
+  const below = verticalFactor(m, TK, m.shift.TrefK);
+  const s = m.crystalSlope ?? m.glassSlope ?? 0;
+  const from = Math.max(m.shift.TrefK, m.glassLowK ?? 0);
+  const Tc = TK > m.TmK ? m.TmK : TK;
+  return Tc <= from || s === 0 ? below : below * Math.exp(-s * (Tc - from));
+}
+
+/** Share of the crystals left at T (K), 0 to 1: intact up to the melting onset, 5 % at Tm, an e-fold per MELT_TAIL_K above. */
+export function crystalsRemaining(m: Material, TK: number): number {
+  if (TK <= m.meltOnsetK) return 1;
+  const u = TK >= m.TmK ? 1 : (TK - m.meltOnsetK) / MELT_ONSET_K;
+  return Math.exp(-LN_MELT * u ** m.meltSharpness - (TK > m.TmK ? (TK - m.TmK) / MELT_TAIL_K : 0));
 }
 
 /** The region of a four-region evaluation from its contributions. */

@@ -28,6 +28,9 @@ export interface MaterialParams {
   crystallinity: number;
   crystalContinuity: number;
   meltSharpness: number;
+  crystalModulusRatio: number;
+  crystalMobility: number;
+  crystalSlope_perK: number | null;
   C1: number;
   C2_K: number;
   Ea_kJmol: number;
@@ -137,7 +140,7 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     max: 0.95,
     optional: false,
     kinds: SC,
-    description: 'crystalline volume fraction at 23 degC',
+    description: 'crystalline volume fraction below the melting onset',
   },
   {
     key: 'crystalContinuity',
@@ -151,11 +154,43 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
   {
     key: 'meltSharpness',
     unit: '-',
-    min: 2,
+    min: 1,
     max: 200,
     optional: false,
     kinds: SC,
-    description: 'exponent m of the melting law exp(-ln20 (T/Tm)^m) in kelvin: larger melts later and more sharply',
+    description:
+      'exponent m of the melting law exp(-ln20 u^m), u = (T - Tm + 25 K) / 25 K from the melting onset to Tm: larger melts later and more sharply',
+  },
+  {
+    key: 'crystalModulusRatio',
+    unit: '-',
+    min: 0.2,
+    max: 5,
+    optional: false,
+    kinds: SC,
+    neutral: 1,
+    description: 'effective crystal-phase modulus over the glassy modulus (Takayanagi crystal element); 1 = the glassy modulus',
+  },
+  {
+    key: 'crystalMobility',
+    unit: 'fraction',
+    min: 0,
+    max: 1,
+    optional: false,
+    kinds: SC,
+    neutral: 1,
+    description:
+      'share of the slow creep that relaxes the crystal phase: 1 crystal-mobile (alpha_c process), 0 crystal-fixed (only the amorphous phase creeps)',
+  },
+  {
+    key: 'crystalSlope_perK',
+    unit: '1/K',
+    min: 0,
+    max: 0.03,
+    optional: true,
+    kinds: SC,
+    description:
+      'fall of the crystal-phase modulus per kelvin from Tg to Tm (the constrained amorphous layers soften); empty = the glassy slope',
   },
   { key: 'C1', unit: '-', min: 1, max: 50, optional: false, kinds: ALL, description: 'WLF C1 with Tg as reference' },
   { key: 'C2_K', unit: 'K', min: 10, max: 300, optional: false, kinds: ALL, description: 'WLF C2 with Tg as reference' },

@@ -170,7 +170,7 @@ export function compilePronyMaterial(spec: PronyMaterialSpec): Material {
     phi: 1,
     TmK: Infinity,
     meltSharpness: 1,
-    melt23: 0,
+    meltOnsetK: Infinity,
     networkMPaPerK: 0,
     prony: series,
     composite: null,
