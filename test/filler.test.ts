@@ -166,7 +166,7 @@ describe('grade text', () => {
 
   it('suggests filled grades on close bases for an unknown base', () => {
     try {
-      getGrade('PA66-GF30');
+      getGrade('PA66-cnd-GF30');
       throw new Error('accepted');
     } catch (e) {
       expect(e).toBeInstanceOf(UnknownFamilyError);
