@@ -234,3 +234,28 @@ describe('datasheet calibration refusals', () => {
     ).toThrow(/two HDT values/);
   });
 });
+
+describe('a calibration that moves a parameter far from its family', () => {
+  it('is at best "fair" and names the parameter with the family value (a time scale moved by more than a factor 10)', () => {
+    // Rule of the product (src/fit/calibrate.ts farFromFamily, set here): a grade that needs its relaxation time
+    // moved by decades is not the family any more; the inputs reproduce, but what they do not cover may have moved.
+    const truth: MaterialParams = { ...getFamily('PC').params, tauTg_s: 300, Tg_low_C: null, Tg_high_C: null };
+    const r = calibrateDatasheet('PC', datasheetOf(truth), { free: ['tauTg_s', 'beta'] });
+    expect(r.residuals.every((x) => x.within)).toBe(true);
+    expect(r.params.tauTg_s).toBeGreaterThan(30);
+    expect(r.quality).not.toBe('good');
+    expect(r.notes.join(' ')).toMatch(/tauTg_s far from the PC value \(1 -> /);
+  });
+  it('stays "good" when the fitted parameters stay near the family (the typical PC datasheet moves only the HDT bar state)', () => {
+    const r = calibrateDatasheet('PC', {
+      modulus23MPa: 2300,
+      hdt: [
+        { stressMPa: 1.8, temperatureK: 130 + K },
+        { stressMPa: 0.45, temperatureK: 140 + K },
+      ],
+      TgK: 147 + K,
+    });
+    expect(r.quality).toBe('good');
+    expect(r.notes.join(' ')).not.toMatch(/far from/);
+  });
+});

@@ -117,7 +117,8 @@ export interface CalibrationResult {
   readonly reason: string;
   /**
    * good: every input within its tolerance; fair: within three tolerances, or good but with long-term answers
-   * moved more than the inputs justify; poor: otherwise or not converged.
+   * moved more than the inputs justify or a fitted parameter far from its family (farFromFamily); poor: otherwise
+   * or not converged.
    */
   readonly quality: CalibrationQuality;
   readonly notes: readonly string[];
@@ -489,6 +490,13 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
         .join('; ')}; give a creep modulus, or fit other parameters`,
     );
   }
+  const far = freeResults.filter((f) => farFromFamily(f));
+  if (far.length > 0) {
+    if (quality === 'good') quality = 'fair';
+    notes.push(
+      `the calibration moved ${far.map((f) => `${f.field} far from the ${defaults?.id ?? 'family'} value (${fmt(f.familyDefault ?? NaN)} -> ${fmt(f.value)})`).join('; ')}: a grade this far from its family is better described by its own test data, and answers the inputs do not cover may have moved with it`,
+    );
+  }
   if (quality === 'poor' && fits.some((f) => f.label.startsWith('HDT') && !residuals.find((x) => x.input === f.label)?.within)) {
     notes.push(
       'an HDT is a threshold crossing: where the modulus runs close to the end-point modulus over a range of temperature, the simulated HDT jumps between regimes and some datasheet pairs cannot be met together; calibrate to fewer inputs, or choose other parameters to fit',
@@ -520,6 +528,24 @@ function familyColumns(family: MaterialParams | null, field: NumericField): Pick
   const range = RANGE_OF[field];
   const value = (f: NumericField | undefined): number | null => (family && f ? family[f] : null) ?? null;
   return { familyDefault: value(field), familyLow: value(range?.[0]), familyHigh: value(range?.[1]) };
+}
+
+/**
+ * Whether a fitted parameter ended far from its family (set here, a screening rule): outside the family's range
+ * widened by its own width (at least 10 K for a temperature, 20 % for a modulus) where the family has a range;
+ * otherwise more than a factor 10 away for a field whose bounds span two decades or more (a time scale), or more
+ * than a quarter of the field's bounds away for any other. The calibration is then at best "fair".
+ */
+function farFromFamily(f: FreeResult): boolean {
+  const d = f.familyDefault;
+  if (d === null) return false;
+  if (f.familyLow !== null && f.familyHigh !== null) {
+    const w = Math.max(f.familyHigh - f.familyLow, f.field === 'E23_MPa' ? 0.2 * Math.abs(d) : 10);
+    return f.value < f.familyLow - w || f.value > f.familyHigh + w;
+  }
+  const spec = fieldSpec(f.field);
+  if (spec.min > 0 && spec.max / spec.min >= 100 && d > 0) return Math.abs(Math.log10(f.value / d)) > 1;
+  return Math.abs(f.value - d) > 0.25 * (spec.max - spec.min);
 }
 
 /** The bundled family a record comes from (its id, or its id before '-cal'), or null. */
