@@ -113,7 +113,10 @@ describe('the calibrated block written', () => {
   const values = cells.map((r) => r.map((c) => c.value));
 
   it('reproduces the invented datasheet within the engine tolerances', () => {
-    expect(result.quality).toBe('good');
+    // Every input is met, but the creep input drives creepEa_kJmol from PBT's 40 to its 500 kJ/mol bound: far from
+    // the family, so at best fair (src/fit/calibrate.ts farFromFamily), with a note naming it.
+    expect(result.quality).toBe('fair');
+    expect(result.notes.join(' ')).toMatch(/creepEa_kJmol far from the PBT value/);
     expect(result.params.id).toBe('PBT-invented');
     expect(result.residuals.map((r) => r.input)).toEqual([
       'Tg',
@@ -161,7 +164,7 @@ describe('the calibrated block written', () => {
 
   it('puts the datasheet check, the fitted parameters and the cautions below the block', () => {
     const L = calibrationLayout(result);
-    expect(values[L.checkTitleRow]?.[0]).toMatch(/^Datasheet check of PBT-invented: calibrated from PBT, quality good/);
+    expect(values[L.checkTitleRow]?.[0]).toMatch(/^Datasheet check of PBT-invented: calibrated from PBT, quality fair/);
     const check = calibrationCheckRows(result);
     expect(values.slice(L.checkHeaderRow, L.checkHeaderRow + check.length)).toEqual(check);
     expect(cells[L.checkHeaderRow + 1]?.[2]?.format).toBe('modulus');

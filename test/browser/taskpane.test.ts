@@ -384,8 +384,9 @@ describe('task pane in Chromium with the in-memory sheet', () => {
       ...INVENTED,
     } as CalibrationFields;
     calibration = runCalibration(readCalibration(fields));
-    expect(calibration.quality).toBe('good');
-    await expect(page.textContent('#cal-quality')).resolves.toMatch(/^Quality good/);
+    // Fair, not good: the creep input drives creepEa_kJmol far from PBT's value (src/fit/calibrate.ts farFromFamily).
+    expect(calibration.quality).toBe('fair');
+    await expect(page.textContent('#cal-quality')).resolves.toMatch(/^Quality fair/);
     const rows = await page
       .locator('#cal-check-rows tr')
       .evaluateAll((trs) =>
