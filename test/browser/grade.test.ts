@@ -4,6 +4,7 @@
  * fault, the humidity field only for polyamides, the grade text in the written formulas, and the look-up's
  * cards and blocks of filled grades.
  */
+import { mkdirSync } from 'node:fs';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import buildAddin from '../../scripts/build/30-addin.mjs';
@@ -35,6 +36,7 @@ async function candidates(): Promise<string[]> {
 beforeAll(async () => {
   const executablePath = ensureChromium();
   await buildAddin();
+  mkdirSync('test-output', { recursive: true });
   preview = await startPreview({ root: 'dist', port: 0 });
   browser = await chromium.launch({ executablePath, args: CHROMIUM_ARGS });
   const context = await browser.newContext({ viewport: { width: 320, height: 800 } });
@@ -88,6 +90,7 @@ describe('building a filled grade in the review (320 px wide)', () => {
     await page.fill('#add-mass', '30 %');
     await page.focus('#add-family-btn');
     await page.keyboard.press('Enter');
+    await page.locator('#review-form fieldset').first().screenshot({ path: 'test-output/grade-builder-320.png' });
     expect(await candidates()).toEqual([
       'PC (family)',
       'PBT (family)',
@@ -145,6 +148,16 @@ describe('building a filled grade in the review (320 px wide)', () => {
     for (let r = 9; r < 20; r++) notes.push(String((await cell('Sheet1', r, 0))?.value ?? ''));
     expect(notes.join(' ')).toMatch(/Filled grades .* along the flow direction/);
     await expect(page.locator('#review-summary tbody th').allTextContents()).resolves.toEqual(['PBT', 'PA66-GF30 at 50 % RH', 'PBT-GF30']);
+    // The chart names each curve by its label cell, the long grade text whole.
+    await page.waitForSelector('#charts figure canvas');
+    const charts = await page.evaluate(() => window.resinDeratePreview?.view.chartData() ?? []);
+    expect(
+      charts
+        .at(-1)
+        ?.series.slice(0, 3)
+        .map((s) => s.label),
+    ).toEqual(['PBT', 'PA66-GF30 at 50 % RH', 'PBT-GF30']);
+    await page.screenshot({ path: 'test-output/taskpane-grade-320.png', fullPage: true });
   });
 });
 
