@@ -5,7 +5,7 @@
 import { durationText, modulusText, mpaValue, ratioText, SECONDS_PER_HOUR, temperatureValue, VERDICT } from '../src/index.js';
 import { markdownTable } from './format.js';
 import type { Out } from './command.js';
-import { computeDemo, DEMO_CAUTION, type DemoReview } from './review.js';
+import { computeDemo, DEMO_CAUTION, DEMO_FILLED_CAUTION, type DemoReview } from './review.js';
 import { DEMO_SCENARIO as S } from './scenario.js';
 
 /** Writes the scenario, the derating table, the duty-cycle check and the cautions. */
@@ -43,7 +43,7 @@ export function printDemo(review: DemoReview, out: Out): void {
       ]),
     ),
   );
-  out.write(`\n${DEMO_CAUTION}\n`);
+  out.write(`\n${DEMO_CAUTION}\n\n${DEMO_FILLED_CAUTION}\n`);
 }
 
 /** Prints the review (the CLI `demo` command also writes the workbook; see main.ts). */

@@ -22,6 +22,10 @@ import { DEMO_SCENARIO as S } from './scenario.js';
 export const DEMO_CAUTION =
   'Screening estimates only. Real grades differ with filler, fibre orientation, moisture, ageing, chemicals, processing and stress level (the model is linear viscoelastic, small strain). Confirm with the supplier data and with creep or relaxation tests (ISO 899, ASTM D2990); apply the safety factors of the applicable code; for parts whose failure can hurt someone, defer to local codes and licensed engineering review.';
 
+/** The caution a filled candidate adds: its estimate is along flow, as the datasheet value is. */
+export const DEMO_FILLED_CAUTION =
+  'Filled grades (PBT-GF30 here) are estimated along the flow direction, where the fibres lie, as datasheets give them: across flow and at weld lines the modulus is lower, so check that the latch arm is filled along its length and carries no weld line.';
+
 /** One candidate's duty-cycle check. */
 export interface DutyCheck {
   readonly id: string;

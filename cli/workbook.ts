@@ -7,8 +7,8 @@ import { mkdirSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
 import type { Alignment, CellErrorValue, CellValue, Font, Workbook, Worksheet } from 'exceljs';
-import { getFamily, NUMERIC_FIELDS, VERDICT } from '../src/index.js';
-import { DEMO_CAUTION, type DemoReview } from './review.js';
+import { getGrade, NUMERIC_FIELDS, VERDICT } from '../src/index.js';
+import { DEMO_CAUTION, DEMO_FILLED_CAUTION, type DemoReview } from './review.js';
 import { DEMO_SCENARIO as S } from './scenario.js';
 
 export const DEMO_WORKBOOK_PATH = 'demo/derating-review.xlsx';
@@ -216,7 +216,7 @@ function numberSources(texts: readonly string[]): Map<string, number> {
  */
 function sourcesSheet(wb: Workbook): void {
   const ws = wb.addWorksheet('Sources');
-  const families = S.candidates.map((id) => getFamily(id));
+  const families = S.candidates.map((id) => getGrade(id));
   const lastCol = 3 + families.length;
   const widths = [18, 8, ...families.map(() => 10), 22];
   widths.forEach((w, k) => (ws.getColumn(k + 1).width = w));
@@ -262,8 +262,9 @@ function cautionsSheet(wb: Workbook): void {
   const rows: string[] = ['Cautions'];
   for (const line of [
     DEMO_CAUTION,
+    DEMO_FILLED_CAUTION,
     'The scenario (product, duty cycle, requirement) is invented for this demo; it is not measured data.',
-    'Family values are typical unfilled grades; a real grade can differ a lot. Replace the symbol by an edited DERATE.PARAMS block to use a grade of your own.',
+    'Family values are typical unfilled grades, and a filled grade is its family with the filler added by Halpin-Tsai; a real grade can differ a lot. Replace the symbol by an edited DERATE.PARAMS block to use a grade of your own.',
     'HDT from DERATE.HDT is a simulated ISO 75 test; ISO 75-1 says HDT results are not design data.',
     'Values cached in this file were computed by the Resin Derate engine when it was written; the add-in recalculates them.',
   ]) {

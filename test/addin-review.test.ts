@@ -9,6 +9,7 @@ import {
   InputError,
   modulusMPa,
   NUMERIC_FIELDS,
+  FILLED_GRADE_IDS,
   parseTimeS,
   TEXT_FIELDS,
 } from '../src/index.js';
@@ -53,8 +54,9 @@ describe('A1 addresses', () => {
 
 describe('families job', () => {
   it('searches by symbol, name and kind', () => {
-    expect(searchFamilies('pa66').map((f) => f.params.id)).toEqual(['PA66-dry', 'PA66-cond']);
-    expect(searchFamilies('').length).toBe(FAMILIES.length);
+    // The families, then the listed filled grades of them (FILLED_GRADE_IDS, src/material/grade.ts).
+    expect(searchFamilies('pa66').map((f) => f.params.id)).toEqual(['PA66-dry', 'PA66-cond', 'PA66-dry-GF30', 'PA66-dry-MD40']);
+    expect(searchFamilies('').length).toBe(FAMILIES.length + FILLED_GRADE_IDS.length);
     expect(searchFamilies('amorphous sulfone').map((f) => f.params.id)).toEqual(['PSU', 'PESU']);
     expect(searchFamilies('no such polymer')).toEqual([]);
   });

@@ -87,6 +87,9 @@ describe('the demo workbook printed (LibreOffice headless -> PDF)', () => {
     const all = text.join(' ');
     expect(all).toContain('defer to local codes and licensed engineering review.');
     expect(all).toContain('ISO 75-1 says HDT results are not design data.');
+    // The filled candidate's caution (cli/review.ts), whole: datasheet moduli of filled grades are along flow (common practice).
+    expect(all).toContain('carries no weld line.');
+    expect(all).toContain('Filled grades (PBT-GF30 here) are estimated along the flow direction');
   });
 
   it('uses one font family, bold and regular (no fallback to a serif face)', () => {

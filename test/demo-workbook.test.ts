@@ -114,6 +114,12 @@ describe('demo workbook', () => {
     cautions?.eachRow((row) => cautionText.push(String(row.getCell(1).value)));
     expect(cautionText.join(' ')).toMatch(/licensed engineering review/);
     expect(cautionText.join(' ')).toMatch(/invented/);
+    // The scenario has a filled candidate, and its caution says the estimate is along flow (common practice:
+    // datasheet moduli of fibre-filled grades are measured on bars filled along their length).
+    expect(DEMO_SCENARIO.candidates.some((id) => /-GF\d/.test(id))).toBe(true);
+    expect(cautionText.join(' ')).toMatch(/along the flow direction.*weld line/);
+    // Its sources include the filler's (Halpin-Tsai inputs, src/material/filler.ts).
+    expect([...listed.values()].join(' ')).toMatch(/E-glass/);
   });
 
   it('caches the same numbers the terminal prints (one computation for both)', async () => {

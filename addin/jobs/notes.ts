@@ -11,3 +11,6 @@ export const FAMILY_NOTE =
 
 export const CALIBRATION_NOTE =
   "A calibrated block reproduces the datasheet numbers it was given (the check above), not the grade's behaviour at other times, temperatures or stresses, where the model extrapolates with the starting family's other parameters. Use it for screening only.";
+
+export const FILLED_NOTE =
+  'Filled grades ("PBT-GF30", "PA66-GF30 at 50 % RH") are estimated from the unfilled family by Halpin-Tsai, along the flow direction as datasheets give it: across flow, at weld lines and where fibres lie at random the modulus is lower.';

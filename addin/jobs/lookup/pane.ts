@@ -1,5 +1,5 @@
 /** The "look up a family" job in the pane: the search box, a card per family, and writing its parameter block. */
-import { FAMILIES, getFamily } from '../../../src/material/families.js';
+import { familiesAndGrades, getGrade } from '../../../src/material/grade.js';
 import { qualified } from '../../sheet/a1.js';
 import { byId, h } from '../../shell/dom.js';
 import { clearMessage, describeError, say } from '../../shell/messages.js';
@@ -17,8 +17,9 @@ export function setUpLookup(shell: Shell, review: ReviewJob): void {
 
 function renderFamilies(query: string, write: (id: string) => void): void {
   const found = searchFamilies(query);
+  const all = familiesAndGrades().length;
   byId('family-count').textContent =
-    found.length === FAMILIES.length ? `${found.length} families` : `${found.length} of ${FAMILIES.length} families match`;
+    found.length === all ? `${found.length} families and filled grades` : `${found.length} of ${all} families and filled grades match`;
   byId('family-list').replaceChildren(
     ...found.map((f) => {
       const s = summarize(f);
@@ -49,7 +50,7 @@ function renderFamilies(query: string, write: (id: string) => void): void {
 
 async function writeFamily(shell: Shell, review: ReviewJob, id: string): Promise<void> {
   try {
-    const f = getFamily(id);
+    const f = getGrade(id);
     const plan = familyBlockPlan(f);
     const { sheet, topLeft } = await shell.selectionTopLeft();
     clearMessage();

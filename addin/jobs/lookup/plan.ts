@@ -1,7 +1,8 @@
 /** The "look up a family" job: searching the bundled table and the parameter block written for a family. */
 import { BLOCK_HEADER, paramsBlock } from '../../../functions/core/block.js';
 import { valueIn } from '../../../src/base/display.js';
-import { displayedParams, FAMILIES, getFamily, type Family } from '../../../src/material/families.js';
+import { displayedParams, type Family } from '../../../src/material/families.js';
+import { familiesAndGrades, getGrade, GRADE_MODULUS_SOURCE, listedModulusMPa } from '../../../src/material/grade.js';
 import { splitHumidity } from '../../../src/material/humidity.js';
 import type { MaterialParams, NumericField } from '../../../src/material/params.js';
 import type { Cell } from '../../sheet/a1.js';
@@ -34,6 +35,17 @@ function quantity(f: Family, label: string, key: NumericField, low: NumericField
   return { label, text: `${valueIn(v, unit)} ${unit}${range}`, source: f.sources[key] ?? 'no source recorded' };
 }
 
+/** A filled grade's 23 degC modulus: the model's estimate along flow (no datasheet range: it is not a datasheet value). */
+function gradeModulus(f: Family): Quantity {
+  const E = listedModulusMPa(f);
+  return {
+    label: 'Modulus at 23 degC, along flow',
+    text: E === null ? '-' : `${valueIn(E, 'MPa')} MPa (estimated)`,
+    source: GRADE_MODULUS_SOURCE,
+  };
+}
+
+/** A family's or filled grade's card: id, name, kind, note and its Tg, Tm and 23 degC modulus with sources. */
 export function summarize(f: Family): FamilySummary {
   return {
     id: f.params.id,
@@ -43,14 +55,15 @@ export function summarize(f: Family): FamilySummary {
     quantities: [
       quantity(f, 'Tg', 'Tg_C', 'Tg_low_C', 'Tg_high_C', 'degC'),
       quantity(f, 'Tm', 'Tm_C', 'Tm_low_C', 'Tm_high_C', 'degC'),
-      quantity(f, 'Modulus at 23 degC', 'E23_MPa', 'E23_low_MPa', 'E23_high_MPa', 'MPa'),
+      f.params.filler === 'none' ? quantity(f, 'Modulus at 23 degC', 'E23_MPa', 'E23_low_MPa', 'E23_high_MPa', 'MPa') : gradeModulus(f),
     ],
   };
 }
 
 /**
- * Families whose id, name or kind contains every word of the query (case-insensitive); all for an empty query.
- * A polyamide with a humidity clause ("PA66 at 70 % RH") finds that one derived family, so its block can be written.
+ * Families and listed filled grades whose id, name or kind contains every word of the query (case-insensitive);
+ * all for an empty query. A polyamide with a humidity clause ("PA66 at 70 % RH", "PA66-GF30 at 70 % RH") finds
+ * that one derived family or grade, so its block can be written.
  */
 export function searchFamilies(query: string): Family[] {
   const atHumidity = familyAtHumidity(query);
@@ -59,7 +72,7 @@ export function searchFamilies(query: string): Family[] {
     .toLowerCase()
     .split(/[\s,]+/)
     .filter(Boolean);
-  return FAMILIES.filter((f) => {
+  return familiesAndGrades().filter((f) => {
     const hay =
       `${f.params.id} ${f.params.name} ${f.params.kind} ${f.params.kind === 'semicrystalline' ? 'semi-crystalline' : ''} ${f.note}`.toLowerCase();
     return words.every((w) => hay.includes(w));
@@ -69,7 +82,7 @@ export function searchFamilies(query: string): Family[] {
 /** The family a query names with a humidity clause, or null (no clause, or one that does not resolve). */
 function familyAtHumidity(query: string): Family | null {
   try {
-    return splitHumidity(query).rhPct === null ? null : getFamily(query);
+    return splitHumidity(query).rhPct === null ? null : getGrade(query);
   } catch {
     // Half-typed or refused text: the ordinary word search answers (with no match), the pane stays quiet while typing.
     return null;

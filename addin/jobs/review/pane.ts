@@ -6,6 +6,8 @@
 import { InputError } from '../../../src/base/errors.js';
 import { modulusText, mpaValue } from '../../../src/base/display.js';
 import { FAMILIES } from '../../../src/material/families.js';
+import { NO_FILLER, type FillerCode } from '../../../src/material/filler.js';
+import { getGrade } from '../../../src/material/grade.js';
 import { VERDICT } from '../../../src/answers/verdict.js';
 import { cyclesInput } from '../../../src/input/count.js';
 import { readRequired } from '../../../src/input/quantity.js';
@@ -13,6 +15,7 @@ import { qualified, type Box } from '../../sheet/a1.js';
 import { byId, h } from '../../shell/dom.js';
 import { clearMessage, say } from '../../shell/messages.js';
 import type { Shell } from '../../shell/shell.js';
+import { composeGrade, fillerOptions, GRADE_ARGS, humidBases, massRange, takesHumidity } from './grade.js';
 import {
   checkCycle,
   paramsFromBlock,
@@ -37,7 +40,9 @@ const FIELD_FOR: Record<string, string> = {
   'required modulus': 'required',
   cycles: 'cycles',
   'duty cycle': 'add-step',
-  candidates: 'add-family',
+  [GRADE_ARGS.base]: 'add-family',
+  [GRADE_ARGS.mass]: 'add-mass',
+  [GRADE_ARGS.humidity]: 'add-rh',
   target: 'target',
   'parameter block': 'add-block',
 };
@@ -68,15 +73,23 @@ class ReviewPane {
 
   constructor(private readonly shell: Shell) {
     const select = byId<HTMLSelectElement>('add-family');
-    select.replaceChildren(...FAMILIES.map((f) => h('option', { value: f.params.id }, `${f.params.id} - ${f.params.name}`)));
-    byId('add-family-btn').addEventListener('click', () => {
-      if (this.candidates.some((c) => c.kind === 'family' && c.id === select.value)) {
-        say(`${select.value} is already a candidate.`, 'info');
-        return;
-      }
-      this.candidates.push({ kind: 'family', id: select.value });
-      this.renderCandidates();
-    });
+    select.replaceChildren(
+      ...FAMILIES.map((f) => h('option', { value: f.params.id }, `${f.params.id} - ${f.params.name}`)),
+      ...humidBases().map((b) => h('option', { value: b.value }, b.text)),
+    );
+    byId<HTMLSelectElement>('add-filler').replaceChildren(...fillerOptions().map((o) => h('option', { value: o.value }, o.text)));
+    for (const id of ['add-family', 'add-filler']) byId(id).addEventListener('change', () => this.showGradeFields());
+    for (const id of ['add-mass', 'add-rh']) byId(id).addEventListener('input', () => this.showGradeFields());
+    byId('add-family-btn').addEventListener('click', () => this.addGrade());
+    for (const id of ['add-mass', 'add-rh']) {
+      byId(id).addEventListener('keydown', (e) => {
+        if (e.key === 'Enter') {
+          e.preventDefault();
+          this.addGrade();
+        }
+      });
+    }
+    this.showGradeFields();
     const blockInput = byId<HTMLInputElement>('add-block');
     byId('block-from-selection').addEventListener('click', () => {
       void shell.port.selection().then((sel) => {
@@ -108,6 +121,53 @@ class ReviewPane {
     this.renderCandidates();
     this.renderSteps();
     showLoad();
+  }
+
+  /** The builder's fields as typed. */
+  private gradeFields(): { base: string; filler: string; mass: string; humidity: string } {
+    return {
+      base: byId<HTMLSelectElement>('add-family').value,
+      filler: byId<HTMLSelectElement>('add-filler').value,
+      mass: byId<HTMLInputElement>('add-mass').value,
+      humidity: byId<HTMLInputElement>('add-rh').value,
+    };
+  }
+
+  /** Shows the mass field only with a filler and the humidity field only for a polyamide base, and the text "Add" will add. */
+  private showGradeFields(): void {
+    const f = this.gradeFields();
+    const filled = f.filler !== NO_FILLER;
+    byId('add-mass-row').hidden = !filled;
+    if (filled) {
+      const [lo, hi] = massRange(f.filler as FillerCode);
+      byId('add-mass-hint').textContent = `${lo} to ${hi} % for ${f.filler}.`;
+    }
+    byId('add-rh-row').hidden = !takesHumidity(f.base);
+    let text: string;
+    try {
+      text = `Adds ${composeGrade(f)}`;
+    } catch {
+      // Half-typed: "Add" reports the problem under its field; this line only says what would be added.
+      text = 'Adds: check the fields above';
+    }
+    byId('add-grade-text').textContent = text;
+  }
+
+  /** Composes the grade from the builder's fields, checks it through the input layer and adds it as a candidate. */
+  private addGrade(): void {
+    try {
+      const id = composeGrade(this.gradeFields());
+      this.shell.markInvalid(null);
+      if (this.candidates.some((c) => c.kind === 'family' && c.id.toLowerCase() === id.toLowerCase())) {
+        say(`${id} is already a candidate.`, 'info');
+        return;
+      }
+      this.candidates.push({ kind: 'family', id });
+      this.renderCandidates();
+      say(`Added ${id} to the review candidates.`, 'ok');
+    } catch (e) {
+      this.shell.reportError(e);
+    }
   }
 
   offerBlock(sheet: string, box: Box): HTMLButtonElement {
@@ -155,7 +215,10 @@ class ReviewPane {
     }
     list.replaceChildren(
       ...this.candidates.map((c, i) => {
-        const label = c.kind === 'family' ? `${c.id} (family)` : `${c.ref} (parameter block)`;
+        const label =
+          c.kind === 'family'
+            ? `${c.id} (${getGrade(c.id).params.filler === NO_FILLER ? 'family' : 'filled grade'})`
+            : `${c.ref} (parameter block)`;
         return h(
           'li',
           { 'data-candidate': c.kind === 'family' ? c.id : c.ref },

@@ -5,7 +5,7 @@
  * functions make.
  */
 import { InputError } from '../../../src/base/errors.js';
-import { getFamily } from '../../../src/material/families.js';
+import { getGrade } from '../../../src/material/grade.js';
 import { modulusAfterHistory } from '../../../src/answers/history.js';
 import { VERDICT } from '../../../src/answers/verdict.js';
 import { compileMaterial, modulusMPa, type Material } from '../../../src/material/model.js';
@@ -21,12 +21,13 @@ import { readRequired } from '../../../src/input/quantity.js';
 import { temperatureInput } from '../../../src/input/temperature.js';
 import { timeInput } from '../../../src/input/time.js';
 import { cellAddress, qualified, type Cell } from '../../sheet/a1.js';
-import { CAUTION, FAMILY_NOTE, MODEL_NOTE } from '../notes.js';
+import { CAUTION, FAMILY_NOTE, FILLED_NOTE, MODEL_NOTE } from '../notes.js';
 import { type CellWrite, type RangeContent, type SheetRange } from '../../sheet/port.js';
 import type { Plan } from '../../shell/writer.js';
 import { chartSpanC, CURVE_SAMPLES, curveTemperaturesC, describeLoad, NA, reviewChart } from './chart.js';
 
 export type Candidate =
+  /** A family or grade as its text reads ("PC", "PBT-GF30", "PA66-GF30 at 50 % RH"): getGrade resolves it. */
   | { readonly kind: 'family'; readonly id: string }
   | { readonly kind: 'block'; readonly range: SheetRange; readonly params: MaterialParams };
 
@@ -111,11 +112,11 @@ export function paramsFromBlock(content: RangeContent, where: string): MaterialP
 }
 
 export function candidateLabel(c: Candidate): string {
-  return c.kind === 'family' ? getFamily(c.id).params.id : `${c.params.id} (${qualified(c.range.sheet, c.range.box, false)})`;
+  return c.kind === 'family' ? getGrade(c.id).params.id : `${c.params.id} (${qualified(c.range.sheet, c.range.box, false)})`;
 }
 
 function material(c: Candidate): Material {
-  return c.kind === 'family' ? compileMaterial(getFamily(c.id).params) : compileMaterial(c.params);
+  return c.kind === 'family' ? compileMaterial(getGrade(c.id).params) : compileMaterial(c.params);
 }
 
 /** Validates everything a review needs; throws InputError naming the input. */
@@ -209,6 +210,7 @@ function assumptions(input: ReviewInput): string[] {
     );
   }
   if (input.candidates.some((c) => c.kind === 'family')) lines.push(FAMILY_NOTE);
+  if (input.candidates.some((c) => c.kind === 'family' && getGrade(c.id).params.filler !== 'none')) lines.push(FILLED_NOTE);
   if (input.candidates.some((c) => c.kind === 'block'))
     lines.push('Parameter blocks are read live from their ranges: edit a value there and the row follows.');
   lines.push('Verdict: pass when the lowest E_r over the listed temperatures is at least the required modulus.');
@@ -306,7 +308,7 @@ export function reviewPlan(input: ReviewInput): Plan {
         const res = results[i];
         if (!res) throw new Error('missing result row');
         const matRef = c.kind === 'family' ? cellAddress(at(r, 0), { col: true }) : qualified(c.range.sheet, c.range.box);
-        put(r, 0, { value: c.kind === 'family' ? getFamily(c.id).params.id : res.label });
+        put(r, 0, { value: c.kind === 'family' ? getGrade(c.id).params.id : res.label });
         input.temperaturesC.forEach((_T, j) => {
           const tempRef = cellAddress(at(L.headerRow, 1 + j), { row: true });
           const value = res.moduliMPa[j] ?? NaN;
