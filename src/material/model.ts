@@ -386,7 +386,7 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   const Ea = glassy + rubbery;
   const c = m.crystalMobility ?? 1;
   // The crystal-fixed share creeps only as its amorphous layers leave the glass (1 - G), late on the slow clock.
-  const h = c === 1 ? 1 : 1 - (1 - G) * (1 - Math.exp(-FIXED_CREEP_N * Math.log1p(theta / FIXED_CREEP_ONSET)));
+  const h = c === 1 || m.creepN === 0 ? 1 : 1 - (1 - G) * (1 - Math.exp(-FIXED_CREEP_N * Math.log1p(theta / FIXED_CREEP_ONSET)));
   const gc = c === 1 ? g : c * g + (1 - c) * h;
   // A crystal is taken as at least as stiff as the amorphous phase around it, so that losing crystals never stiffens.
   const Ec = Math.max(gc * (m.crystalRatio ?? 1) * m.EgMPa * crystalFactor(m, TK), Ea);
