@@ -15,7 +15,7 @@ const KNOWN_GAPS: Record<string, string> = {
   'PP-GF30 HDT/A': `${CRYSTAL_SLOPE}; PP's alpha_c creep during the ramp adds to it`,
   'PEEK-CF30 HDT/A': CRYSTAL_SLOPE,
   'PPS-GF40 HDT/A':
-    'too high (the optimistic side, 12 K): the PPS crystal plateau, tuned on the unfilled grade, stays stiff enough with 40 % glass to carry the end point into the melting window; the real grade softens earlier',
+    'too high (the optimistic side, 13 K): the PPS crystal plateau, tuned on the unfilled grade, stays stiff enough with 40 % glass to carry the end point into the melting window; the real grade softens earlier',
 };
 
 type Row = { key: string; simulated: number; typical: number; ok: boolean; source: string };

@@ -19,8 +19,8 @@
  *                       (alpha_c, chain motion through the crystals, c = 1) or only the amorphous phase
  *                       (crystal-fixed, c = 0: the slow creep is then a secondary process of the amorphous
  *                       phase, and h = 1 - (1 - G)(1 - (1 + theta / theta_s)^-n_s): the lamellar stacks
- *                       creep through the rubbery interlamellar layers, late on the slow-creep clock;
- *                       FIXED_CREEP_N, FIXED_CREEP_ONSET),
+ *                       creep through the rubbery interlamellar layers, late on the slow-creep clock
+ *                       taken with its own activation energy; FIXED_CREEP_N, FIXED_CREEP_ONSET, _EA),
  *                     r(T) = 1 up to the melting onset Tm - MELT_ONSET_K, exp(-ln20 u^m) with
  *                       u = (T - Tm + MELT_ONSET_K) / MELT_ONSET_K between onset and Tm (5 % left at Tm),
  *                       times exp(-(T - Tm) / 2 K) above Tm
@@ -81,6 +81,14 @@ export const FIXED_CREEP_N = 0.04;
  * ramp (the HDT checks) are nearly untouched while the 1000 h answers above Tg keep falling.
  */
 export const FIXED_CREEP_ONSET = 1e6;
+/**
+ * Activation energy of that creep's own clock, kJ/mol: the slow-creep clock rescaled at the evaluation
+ * temperature, so that a calibration moving creepEa (the amorphous secondary process) leaves it alone. Set here:
+ * 40, the creepEa of the bundled polyamides and PBT, inside the secondary-process range 30 to 100 kJ/mol
+ * (Starkweather, Macromolecules 14 (1981) 1277).
+ */
+export const FIXED_CREEP_EA_KJMOL = 40;
+const FIXED_LOG10_PER_INV_K = (FIXED_CREEP_EA_KJMOL * 1000) / (GAS_CONSTANT * Math.LN10);
 
 /**
  * Kelvin below 23 degC at which the glassy modulus stops rising on cooling (set here: the fall with
@@ -386,7 +394,8 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   const Ea = glassy + rubbery;
   const c = m.crystalMobility ?? 1;
   // The crystal-fixed share creeps only as its amorphous layers leave the glass (1 - G), late on the slow clock.
-  const h = c === 1 || m.creepN === 0 ? 1 : 1 - (1 - G) * (1 - Math.exp(-FIXED_CREEP_N * Math.log1p(theta / FIXED_CREEP_ONSET)));
+  const h =
+    c === 1 || m.creepN === 0 ? 1 : 1 - (1 - G) * (1 - Math.exp(-FIXED_CREEP_N * Math.log1p(fixedClock(m, theta, TK) / FIXED_CREEP_ONSET)));
   const gc = c === 1 ? g : c * g + (1 - c) * h;
   // A crystal is taken as at least as stiff as the amorphous phase around it, so that losing crystals never stiffens.
   const Ec = Math.max(gc * (m.crystalRatio ?? 1) * m.EgMPa * crystalFactor(m, TK), Ea);
@@ -398,6 +407,14 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   p.lambda = lambda;
   p.melting = TK >= m.meltOnsetK;
   return lambda * series + (1 - lambda) * Ea;
+}
+
+/** The crystal-fixed creep's clock (1): the slow-creep clock theta at T (K) with FIXED_CREEP_EA_KJMOL for creepEa. */
+function fixedClock(m: Material, theta: number, TK: number): number {
+  if (theta === 0) return 0;
+  const v = theta * 10 ** ((m.creepLog10PerInvK - FIXED_LOG10_PER_INV_K) * (1 / TK - 1 / T23_K));
+  // Infinity times an underflowed factor: the extreme ends of the property tests, never a service answer.
+  return Number.isNaN(v) ? 0 : v;
 }
 
 /**
