@@ -58,7 +58,7 @@ export const SRC = {
   crystalMobile:
     'Boyd, Polymer 26 (1985) 323; Hu and Schmidt-Rohr, Acta Polym. 50 (1999) 271: a crystal-mobile polymer, whose alpha_c process (chain motion through the crystals) relaxes the crystal phase too',
   crystalFixed:
-    'Boyd, Polymer 26 (1985) 323; Hu and Schmidt-Rohr, Acta Polym. 50 (1999) 271: a crystal-fixed polymer (no alpha_c process); its slow creep is a secondary process of the amorphous phase, bounded below by the crystal plateau',
+    'Boyd, Polymer 26 (1985) 323; Hu and Schmidt-Rohr, Acta Polym. 50 (1999) 271: a crystal-fixed polymer (no alpha_c process); its slow creep is a secondary process of the amorphous phase; above Tg the crystal-bearing structure creeps too, late and slowly (model.ts FIXED_CREEP_N, set here)',
   crystalFit:
     'set here: tuned to the check values the family carries (checks.ts), within 0.3 to 4 for the crystal-phase modulus ratio, 0 to 2 % per K for its slope and the typical crystallinity of moulded parts (from memory)',
   creepEaAlphaC:

@@ -180,7 +180,7 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     kinds: SC,
     neutral: 1,
     description:
-      'share of the slow creep that relaxes the crystal phase: 1 crystal-mobile (alpha_c process), 0 crystal-fixed (only the amorphous phase creeps)',
+      'share of the slow creep that relaxes the crystal phase: 1 crystal-mobile (alpha_c process), 0 crystal-fixed (the amorphous phase creeps; above Tg the crystal-bearing structure too, late and slowly)',
   },
   {
     key: 'crystalSlope_perK',
