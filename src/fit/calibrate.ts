@@ -320,22 +320,13 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
   const modulusAt23 = (m: Material): number => modulusMPa(m, DATASHEET_TIME_S, T23_K);
   if (inputs.modulus23MPa !== undefined) {
     const E = inputs.modulus23MPa;
-    if (filled) {
-      // E23_MPa of a filled record is the matrix's: the grade's modulus is fitted, through the filler first.
-      fits.push({
-        label: 'modulus at 23 degC',
-        unit: 'MPa',
-        given: E,
-        tolerance: `${MODULUS_TOLERANCE * 100} %`,
-        evaluate: modulusAt23,
-        scale: (r) => Math.log((r ?? 0) / E) / MODULUS_TOLERANCE,
-        candidates: [...FILLER_FREE_PREFERENCE.modulus, p0.E23_MPa !== null ? 'E23_MPa' : 'Eg_MPa'],
-      });
-    } else if (p0.E23_MPa !== null && !humid) {
+    if (!filled && p0.E23_MPa !== null && !humid) {
       base.E23_MPa = E;
       direct.set('E23_MPa', 'modulus at 23 degC');
       residualRows.push({ input: 'modulus at 23 degC', unit: 'MPa', given: E, via: 'E23_MPa', evaluate: modulusAt23 });
     } else {
+      // E23_MPa of a filled record is the matrix's: the grade's modulus is fitted, through the filler first.
+      const anchor: NumericField = p0.E23_MPa !== null ? 'E23_MPa' : 'Eg_MPa';
       fits.push({
         label: 'modulus at 23 degC',
         unit: 'MPa',
@@ -343,7 +334,7 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
         tolerance: `${MODULUS_TOLERANCE * 100} %`,
         evaluate: modulusAt23,
         scale: (r) => Math.log((r ?? 0) / E) / MODULUS_TOLERANCE,
-        candidates: kind === 'crosslinked' ? ['Mc_kgmol', 'Eg_MPa'] : p0.E23_MPa !== null ? ['E23_MPa'] : ['Eg_MPa'],
+        candidates: filled ? [...FILLER_FREE_PREFERENCE.modulus, anchor] : kind === 'crosslinked' ? ['Mc_kgmol', 'Eg_MPa'] : [anchor],
       });
     }
   }
