@@ -78,8 +78,8 @@ const COMMANDS: Record<string, Command> = {
     usage: 'resin-derate families [--json]',
     options: { ...json },
     run(v, out) {
+      // A humid polyamide lists its wet Tg and modulus (`params` prints the dry ones and the humidity); each is computed once.
       const listed = familiesAndGrades();
-      // A humid polyamide lists its wet Tg and modulus (`params` prints the dry ones and the humidity).
       const data = listed.map((f) => ({
         id: f.params.id,
         name: f.params.name,
@@ -89,17 +89,14 @@ const COMMANDS: Record<string, Command> = {
         E23_MPa: listedModulusMPa(f),
         sources: f.sources,
       }));
-      const rows = listed.map((f) => {
-        const E23 = listedModulusMPa(f);
-        return [
-          f.params.id,
-          f.params.kind,
-          String(displayedParams(f.params).Tg_C),
-          f.params.Tm_C === null ? '' : String(f.params.Tm_C),
-          E23 === null ? '' : f.params.filler === 'none' ? String(E23) : significant(E23, 2),
-          f.params.name,
-        ];
-      });
+      const rows = data.map((d, i) => [
+        d.id,
+        d.kind,
+        String(d.Tg_C),
+        d.Tm_C === null ? '' : String(d.Tm_C),
+        d.E23_MPa === null ? '' : listed[i]?.params.filler === 'none' ? String(d.E23_MPa) : significant(d.E23_MPa, 2),
+        d.name,
+      ]);
       emit(out, v, data, markdownTable(['id', 'kind', 'Tg degC', 'Tm degC', 'E23 MPa', 'name'], rows));
     },
   },
