@@ -36,7 +36,7 @@ export const FAMILIES_DEF = defineMatrix({
         p.kind,
         p.Tg_C,
         p.Tm_C,
-        listedModulusMPa(f),
+        filled ? listedModulusMPa(f) : p.E23_MPa,
         p.Eg_MPa,
         s.Tg_C ?? null,
         p.Tm_C === null ? null : (s.Tm_C ?? null),
