@@ -9,11 +9,7 @@ import { CHECK_HDT_K, CHECK_MODULUS_REL, FAMILY_CHECKS } from '../src/material/c
  * not meet yet, with the structural reason; the test fails if one of them starts to pass (so the list stays true)
  * or if any other check fails.
  */
-const KNOWN_GAPS: Record<string, string> = {
-  'PP E80':
-    'one alpha_c power law of fixed strength: the HDT/A ramp near 58 degC needs more creep than the 10 s modulus at 80 degC allows; the strength of a real alpha_c process rises with temperature, which the model does not carry',
-  'POM E80': 'as PP, with the HDT/A ramp near 100 degC',
-};
+const KNOWN_GAPS: Record<string, string> = {};
 
 type Row = { key: string; simulated: number; typical: number; ok: boolean; source: string };
 

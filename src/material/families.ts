@@ -67,6 +67,10 @@ export const SRC = {
     'set here: secondary process of the amorphous phase (30 to 100 kJ/mol: Starkweather, Macromolecules 14 (1981) 1277) with creepN to meet the check values',
   constrainedAmorphous:
     'set here: a broad transition of the amorphous phase constrained between the crystals (KWW beta 0.1 to 0.35, WLF C2 240 K at the top of the published range 25 to 240 K, Ferry 1980 Table 11-II; the loss peak of a dry polyamide spans some 50 K, from memory), with tauTg, to meet the HDT/A and hot-modulus checks',
+  creepRise:
+    'set here: tuned with the crystal slope to the check values (checks.ts), 0.8 % per K over 70 K (model.ts CREEP_RISE_SPAN_K); the strength of an alpha_c process grows with temperature (Boyd, Polymer 26 (1985) 323, from memory), so the 10 s modulus at 80 degC and the HDT ramp no longer pull one exponent apart',
+  creepRiseZero:
+    'set here: 0, the same creep exponent at every temperature; a rising one brought this family no closer to its check values (PE-HD, PE-LD, PTFE) or has no long-term check to set it by (PVDF)',
   crystalNeutral: 'set here: the neutral value, which keeps the model as it was before the field existed',
   meltOnset: 'set here: shape of the melting law between the onset (Tm - 25 K) and Tm, with the HDT/B check value',
 } as const;
@@ -173,6 +177,7 @@ const ENTRIES: Entry[] = [
       meltSharpness: 3,
     },
     src: {
+      creepRise_perK: SRC.creepRiseZero,
       Tg_C: SRC.disputedTg,
       crystalMobility: SRC.crystalMobile,
       crystalModulusRatio: SRC.crystalFit,
@@ -200,6 +205,7 @@ const ENTRIES: Entry[] = [
       meltSharpness: 3,
     },
     src: {
+      creepRise_perK: SRC.creepRiseZero,
       Tg_C: SRC.disputedTg,
       crystalMobility: SRC.crystalMobile,
       crystalModulusRatio: SRC.crystalFit,
@@ -221,9 +227,10 @@ const ENTRIES: Entry[] = [
       crystallinity: 0.5,
       crystalMobility: 1,
       crystalModulusRatio: 0.7,
-      crystalSlope_perK: 0.0117,
-      creepN: 0.088,
+      crystalSlope_perK: 0.0028,
+      creepN: 0.094,
       creepEa_kJmol: 100,
+      creepRise_perK: 0.008,
       meltSharpness: 3,
     },
     src: {
@@ -233,6 +240,7 @@ const ENTRIES: Entry[] = [
       crystallinity: SRC.crystalFit,
       creepN: SRC.creepEaAlphaC,
       creepEa_kJmol: SRC.creepEaAlphaC,
+      creepRise_perK: SRC.creepRise,
       meltSharpness: SRC.meltOnset,
     },
   },
@@ -409,9 +417,10 @@ const ENTRIES: Entry[] = [
       crystallinity: 0.634,
       crystalMobility: 1,
       crystalModulusRatio: 0.392,
-      crystalSlope_perK: 0.0051,
-      creepN: 0.06,
-      creepEa_kJmol: 179,
+      crystalSlope_perK: 0.0029,
+      creepN: 0.0635,
+      creepEa_kJmol: 100,
+      creepRise_perK: 0.008,
       meltSharpness: 6.38,
     },
     src: {
@@ -422,6 +431,7 @@ const ENTRIES: Entry[] = [
       crystallinity: SRC.crystalFit,
       creepN: SRC.creepEaAlphaC,
       creepEa_kJmol: SRC.creepEaAlphaC,
+      creepRise_perK: SRC.creepRise,
       meltSharpness: SRC.meltOnset,
     },
   },
@@ -436,9 +446,10 @@ const ENTRIES: Entry[] = [
       crystallinity: 0.8,
       crystalMobility: 1,
       crystalModulusRatio: 0.64,
-      crystalSlope_perK: 0.0053,
-      creepN: 0.061,
-      creepEa_kJmol: 144,
+      crystalSlope_perK: 0.0025,
+      creepN: 0.062,
+      creepEa_kJmol: 100,
+      creepRise_perK: 0.008,
       meltSharpness: 2.8,
     },
     src: {
@@ -449,6 +460,7 @@ const ENTRIES: Entry[] = [
       crystallinity: SRC.crystalFit,
       creepN: SRC.creepEaAlphaC,
       creepEa_kJmol: SRC.creepEaAlphaC,
+      creepRise_perK: SRC.creepRise,
       meltSharpness: SRC.meltOnset,
     },
   },
@@ -599,6 +611,7 @@ const ENTRIES: Entry[] = [
       meltSharpness: 3,
     },
     src: {
+      creepRise_perK: SRC.creepRiseZero,
       Tg_C: SRC.disputedTg,
       crystalMobility: SRC.crystalMobile,
       crystalModulusRatio: SRC.crystalFit,
@@ -626,6 +639,7 @@ const ENTRIES: Entry[] = [
       meltSharpness: 1,
     },
     src: {
+      creepRise_perK: SRC.creepRiseZero,
       crystalMobility: SRC.crystalMobile,
       crystalModulusRatio: SRC.crystalFit,
       crystalSlope_perK: SRC.crystalFit,
@@ -726,6 +740,7 @@ const BASE_SOURCES: SourceMap = {
   flowBeta: SRC.flow,
   creepN: SRC.creepN,
   creepEa_kJmol: SRC.creepEa,
+  creepRise_perK: SRC.crystalNeutral,
   crystallinity: SRC.crystallinity,
   crystalContinuity: SRC.continuity,
   meltSharpness: SRC.melt,
@@ -769,6 +784,7 @@ export function blankParams(id: string, kind: Kind): MaterialParams {
     flowBeta: 0.6,
     creepN: 0.01,
     creepEa_kJmol: 60,
+    creepRise_perK: 0,
     density_kgm3: 1000,
     Mc_kgmol: 1,
     filler: 'none',

@@ -8,7 +8,9 @@
  * t / tau_c(T), tau_c = 1 s at 23 degC, Arrhenius with creepEa. With x = xi / tauTg:
  *   glass transition  G = exp(-x^beta)                         (KWW; Roland and Ngai 1991)
  *   terminal flow     F = exp(-(x / 10^flowDecades)^flowBeta)
- *   slow creep        g = (1 + theta)^-creepN                  (bounded power law, Findley style)
+ *   slow creep        g = (1 + theta)^-n(T)                    (bounded power law, Findley style), n = creepN
+ *                     at and below 23 degC, rising by creepRise_perK per kelvin above it over CREEP_RISE_SPAN_K
+ *                     (an alpha_c process grows stronger as it warms; 0 for every other family)
  *   amorphous         E = g [(Eg - Ep) G + Ep F]
  *   semicrystalline   Takayanagi: E = lambda / (phi/Ec + (1-phi)/Ea) + (1 - lambda) Ea, lambda phi = X r(T),
  *                     (Takayanagi, Uemura, Minami, J. Polym. Sci. C 5 (1964) 113), with
@@ -129,6 +131,8 @@ export interface Material {
   readonly flowBeta: number;
   readonly plateau: number;
   readonly creepN: number;
+  /** Rise of the slow-creep exponent per kelvin above 23 degC, 1/K (absent: 0). */
+  readonly creepRise?: number;
   readonly creepLog10PerInvK: number;
   readonly crystallinity: number;
   readonly phi: number;
@@ -220,6 +224,7 @@ function build(p: MaterialParams, EgRefMPa: number, TgC = p.Tg_C): Material {
     flowBeta: p.flowBeta,
     plateau: p.kind === 'crosslinked' ? 0 : p.plateau_MPa,
     creepN: p.creepN,
+    creepRise: p.kind === 'semicrystalline' ? p.creepRise_perK : 0,
     creepLog10PerInvK: (p.creepEa_kJmol * 1000) / (GAS_CONSTANT * Math.LN10),
     crystallinity: p.kind === 'semicrystalline' ? p.crystallinity : 0,
     phi: p.kind === 'semicrystalline' ? p.crystalContinuity : 1,
@@ -359,7 +364,7 @@ const SCRATCH: Parts = { G: 1, F: 1, g: 1, remaining: 0, glassy: 0, rubbery: 0, 
  */
 function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Parts): number {
   const G = Math.exp(-Math.exp(m.beta * lnX));
-  const g = m.creepN === 0 ? 1 : Math.exp(-m.creepN * Math.log1p(theta));
+  const g = m.creepN === 0 ? 1 : Math.exp(-creepExponent(m, TK) * Math.log1p(theta));
   p.G = G;
   p.g = g;
   const Eg = m.EgMPa * verticalFactor(m, TK, m.shift.TrefK);
@@ -407,6 +412,28 @@ function modulusParts(m: Material, lnX: number, theta: number, TK: number, p: Pa
   p.lambda = lambda;
   p.melting = TK >= m.meltOnsetK;
   return lambda * series + (1 - lambda) * Ea;
+}
+
+/**
+ * Span above 23 degC over which the slow-creep exponent rises (creepRise_perK), K; it is held above. Set here: 70 K,
+ * up to 93 degC, about where the alpha_c loss peaks of polyethylene and polypropylene lie at 1 Hz (50 to 100 degC,
+ * from memory): past its peak a process is fully developed and its strength no longer grows. Without the hold the
+ * exponent keeps rising up to the melting onset and takes a glass-fibre PP grade's HDT/A some 15 K lower still.
+ */
+export const CREEP_RISE_SPAN_K = 70;
+
+/**
+ * The slow-creep exponent at T (K): creepN at and below 23 degC, rising by creepRise_perK per kelvin above it and
+ * held from 23 degC + CREEP_RISE_SPAN_K (or the melting onset, if lower) up. Non-decreasing in T, so the creep factor stays non-increasing in T. The strength
+ * of an alpha_c process grows with temperature (Boyd, Polymer 26 (1985) 323, from memory: the alpha loss peak of
+ * polyethylene grows as it moves up in temperature), which one exponent at every temperature cannot carry: the
+ * 10 s modulus at 80 degC and the heating ramp of HDT/A pull a fixed exponent in opposite directions (PP, POM).
+ */
+export function creepExponent(m: Material, TK: number): number {
+  const rise = m.creepRise ?? 0;
+  if (rise === 0 || TK <= T23_K) return m.creepN;
+  const Tc = Math.min(TK, m.meltOnsetK, T23_K + CREEP_RISE_SPAN_K);
+  return Tc <= T23_K ? m.creepN : m.creepN * (1 + rise * (Tc - T23_K));
 }
 
 /** The crystal-fixed creep's clock (1): the slow-creep clock theta at T (K) with FIXED_CREEP_EA_KJMOL for creepEa. */

@@ -40,6 +40,7 @@ export interface MaterialParams {
   flowBeta: number;
   creepN: number;
   creepEa_kJmol: number;
+  creepRise_perK: number;
   density_kgm3: number | null;
   Mc_kgmol: number;
   glassySlope_perK: number;
@@ -248,6 +249,17 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     optional: false,
     kinds: ALL,
     description: 'activation energy of the slow-creep clock (1 s at 23 degC)',
+  },
+  {
+    key: 'creepRise_perK',
+    unit: '1/K',
+    min: 0,
+    max: 0.05,
+    optional: false,
+    kinds: SC,
+    neutral: 0,
+    description:
+      'rise of the slow-creep exponent per kelvin from 23 to 93 degC, held above: an alpha_c process grows stronger as it warms (0 = the same exponent at every temperature)',
   },
   {
     key: 'density_kgm3',
