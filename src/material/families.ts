@@ -68,9 +68,8 @@ export const SRC = {
   constrainedAmorphous:
     'set here: a broad transition of the amorphous phase constrained between the crystals (KWW beta 0.1 to 0.35, WLF C2 240 K at the top of the published range 25 to 240 K, Ferry 1980 Table 11-II; the loss peak of a dry polyamide spans some 50 K, from memory), with tauTg, to meet the HDT/A and hot-modulus checks',
   creepRise:
-    'set here: tuned with the crystal slope to the check values (checks.ts), 0.8 % per K over 70 K (model.ts CREEP_RISE_SPAN_K); the strength of an alpha_c process grows with temperature (Boyd, Polymer 26 (1985) 323, from memory), so the 10 s modulus at 80 degC and the HDT ramp no longer pull one exponent apart',
-  creepRiseZero:
-    'set here: 0, the same creep exponent at every temperature; a rising one brought this family no closer to its check values (PE-HD, PE-LD, PTFE) or has no long-term check to set it by (PVDF)',
+    'set here: 0.8 % per K from 23 to 93 degC, with the crystal slope, to meet the check values; an alpha_c process strengthens as it warms (Boyd, Polymer 26 (1985) 323, from memory)',
+  creepRiseZero: 'set here: 0; a rising creep exponent brought this family no closer to its check values, or has none to set it by',
   crystalNeutral: 'set here: the neutral value, which keeps the model as it was before the field existed',
   meltOnset: 'set here: shape of the melting law between the onset (Tm - 25 K) and Tm, with the HDT/B check value',
 } as const;

@@ -258,8 +258,7 @@ export const NUMERIC_FIELDS: readonly FieldSpec[] = [
     optional: false,
     kinds: SC,
     neutral: 0,
-    description:
-      'rise of the slow-creep exponent per kelvin from 23 to 93 degC, held above: an alpha_c process grows stronger as it warms (0 = the same exponent at every temperature)',
+    description: 'rise of the slow-creep exponent per kelvin from 23 to 93 degC, held above (alpha_c strengthens as it warms)',
   },
   {
     key: 'density_kgm3',
