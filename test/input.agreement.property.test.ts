@@ -54,6 +54,7 @@ import {
   validTemperatureText,
   validTimeText,
 } from './arbitraries.js';
+import { BLANK_CALIBRATION_FIELDS } from './support/calibration-form.js';
 
 /** What a front-end made of one input: a number in engine units, nothing (left empty, optional), or a problem. */
 type Verdict = { readonly ok: number | undefined } | { readonly problem: string };
@@ -106,22 +107,9 @@ function cli(key: string, q: Quantity<number>, text: string, optional = false): 
   return verdict(() => (optional ? maybe(v, key, q) : need(v, key, q)));
 }
 
-const BLANK_FIELDS: CalibrationFields = {
-  start: 'PBT',
-  modulus23: '',
-  hdtA: '',
-  hdtB: '',
-  tg: '',
-  tm: '',
-  creepModulus: '',
-  creepTime: '1000 h',
-  creepTemperature: '23',
-  id: '',
-};
-
 /** The pane's calibration form with one field typed. */
 function form(fields: Partial<CalibrationFields>, pick: (r: ReturnType<typeof readCalibration>) => number | undefined): Verdict {
-  return verdict(() => pick(readCalibration({ ...BLANK_FIELDS, ...fields })));
+  return verdict(() => pick(readCalibration({ ...BLANK_CALIBRATION_FIELDS, ...fields })));
 }
 
 /** Text of a quantity: mostly valid, out-of-range numbers, unit text of the quantity and of others, anything. */
