@@ -11,7 +11,6 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { main } from '../cli/main.js';
 import { maybe, need, type Values } from '../cli/command.js';
 import { readCalibration, type CalibrationFields } from '../addin/jobs/calibrate/request.js';
 import { checkCycle, parseRequired, parseServiceTime, parseTemperatureList } from '../addin/jobs/review/plan.js';
@@ -55,6 +54,7 @@ import {
   validTimeText,
 } from './arbitraries.js';
 import { BLANK_CALIBRATION_FIELDS } from './support/calibration-form.js';
+import { runMain } from './support/cli-run.js';
 
 /** What a front-end made of one input: a number in engine units, nothing (left empty, optional), or a problem. */
 type Verdict = { readonly ok: number | undefined } | { readonly problem: string };
@@ -305,9 +305,7 @@ interface CliAnswer {
 }
 
 async function runCli(args: readonly string[]): Promise<CliAnswer> {
-  let out = '';
-  let err = '';
-  const code = await main(args, { write: (s: string) => (out += s) }, { write: (s: string) => (err += s) });
+  const { code, out, err } = await runMain(args);
   if (code === 0) return { code, json: JSON.parse(out) as Record<string, unknown>, problem: null, option: null };
   const m = /^resin-derate [a-z]+: (--[a-z0-9-]+): (.*)\n$/s.exec(err);
   return { code, json: null, problem: m?.[2] ?? err, option: m?.[1] ?? null };
