@@ -24,19 +24,7 @@ import { paramsFromBlock } from '../addin/jobs/review/plan.js';
 import { commit, OccupiedError, undo } from '../addin/shell/writer.js';
 import { paramsBlock } from '../functions/core/block.js';
 import { expectClose } from './expect.js';
-
-const BLANK: CalibrationFields = {
-  start: 'PBT',
-  modulus23: '',
-  hdtA: '',
-  hdtB: '',
-  tg: '',
-  tm: '',
-  creepModulus: '',
-  creepTime: '1000 h',
-  creepTemperature: '23',
-  id: '',
-};
+import { BLANK_CALIBRATION_FIELDS as BLANK } from './support/calibration-form.js';
 
 /** INVENTED datasheet numbers of a made-up PBT grade (not any real product), typed as a user would. */
 const INVENTED_PBT: CalibrationFields = {

@@ -14,6 +14,8 @@ import { main } from '../cli/main.js';
 import type { Command } from '../cli/command.js';
 import { getFamily, InputError, paramsToRecord, ParameterError, SolverError } from '../src/index.js';
 import { propertyParameters } from './arbitraries.js';
+import type { Answer } from './cli-cases.js';
+import { runMain } from './support/cli-run.js';
 
 const OPTIONS: Options = { family: { type: 'string' }, temp: { type: 'string' }, time: { type: 'string' }, json: { type: 'boolean' } };
 
@@ -27,11 +29,8 @@ function problem(args: readonly string[]): string {
   return '';
 }
 
-async function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(argv, { write: (s: string) => (out += s) }, { write: (s: string) => (err += s) });
-  return { code, out, err };
+function run(...argv: string[]): Promise<Answer> {
+  return runMain(argv);
 }
 
 describe('readArgs', () => {

@@ -5,14 +5,12 @@
  */
 import { execFileSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
-import { main } from '../cli/main.js';
 import { durationText, modulusRangeText, modulusText, stressText, temperatureText } from '../src/base/display.js';
+import type { Answer } from './cli-cases.js';
+import { runMain } from './support/cli-run.js';
 
-async function run(...argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(argv, { write: (s: string) => (out += s) }, { write: (s: string) => (err += s) });
-  return { code, out, err };
+function run(...argv: string[]): Promise<Answer> {
+  return runMain(argv);
 }
 
 async function text(...argv: string[]): Promise<string> {

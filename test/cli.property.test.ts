@@ -5,17 +5,14 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { main } from '../cli/main.js';
 import { propertyParameters } from './arbitraries.js';
 import { cliCase, COMMANDS, contractBreach, writeParamFiles, type Answer, type CliCase } from './cli-cases.js';
+import { runMain } from './support/cli-run.js';
 
 const paramFiles = writeParamFiles();
 
-async function run(c: CliCase): Promise<Answer> {
-  let out = '';
-  let err = '';
-  const code = await main([c.command, ...c.args], { write: (s: string) => (out += s) }, { write: (s: string) => (err += s) });
-  return { code, out, err };
+function run(c: CliCase): Promise<Answer> {
+  return runMain([c.command, ...c.args]);
 }
 
 describe('CLI contract, in-process: exit 0 with the documented JSON, or one stderr line naming the argument', () => {
@@ -32,9 +29,7 @@ describe('CLI contract, in-process: exit 0 with the documented JSON, or one stde
     });
   }
   it('no command: the help on stdout, one line on stderr, non-zero exit', async () => {
-    let out = '';
-    let err = '';
-    const code = await main([], { write: (s: string) => (out += s) }, { write: (s: string) => (err += s) });
+    const { code, out, err } = await runMain([]);
     expect(code).not.toBe(0);
     expect(out).toMatch(/Usage: resin-derate COMMAND/);
     expect(err).toBe('resin-derate: a command is required; the commands are listed above\n');

@@ -34,22 +34,13 @@ import {
   type PronyMaterialSpec,
 } from '../src/index.js';
 import { expectClose } from './expect.js';
+import { fourTermProny } from './support/prony.js';
 
 const K = KELVIN_OFFSET;
 const MONOTONE =
   'a shift factor that falls with temperature (WLF with C1, C2 > 0: Williams, Landel, Ferry 1955; Arrhenius with Ea > 0): a relaxation modulus never rises with T';
 
-const SPEC: PronyMaterialSpec = {
-  id: 'bounds',
-  name: 'four terms',
-  referenceC: 160,
-  prony: { EinfMPa: 1.5, terms: [0.01, 1, 100, 1e4].map((tauS, i) => ({ tauS, EMPa: [1200, 600, 300, 20][i] ?? 0 })) },
-  shiftLaw: 'hybrid',
-  TgC: 147,
-  C1: 12.3,
-  C2K: 73,
-  EakJmol: 600,
-};
+const SPEC = fourTermProny('bounds');
 
 function fieldOf(f: () => unknown): string {
   try {

@@ -11,7 +11,6 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { main } from '../cli/main.js';
 import { maybe, need, type Values } from '../cli/command.js';
 import { readCalibration, type CalibrationFields } from '../addin/jobs/calibrate/request.js';
 import { checkCycle, parseRequired, parseServiceTime, parseTemperatureList } from '../addin/jobs/review/plan.js';
@@ -54,6 +53,8 @@ import {
   validTemperatureText,
   validTimeText,
 } from './arbitraries.js';
+import { BLANK_CALIBRATION_FIELDS } from './support/calibration-form.js';
+import { runMain } from './support/cli-run.js';
 
 /** What a front-end made of one input: a number in engine units, nothing (left empty, optional), or a problem. */
 type Verdict = { readonly ok: number | undefined } | { readonly problem: string };
@@ -106,22 +107,9 @@ function cli(key: string, q: Quantity<number>, text: string, optional = false): 
   return verdict(() => (optional ? maybe(v, key, q) : need(v, key, q)));
 }
 
-const BLANK_FIELDS: CalibrationFields = {
-  start: 'PBT',
-  modulus23: '',
-  hdtA: '',
-  hdtB: '',
-  tg: '',
-  tm: '',
-  creepModulus: '',
-  creepTime: '1000 h',
-  creepTemperature: '23',
-  id: '',
-};
-
 /** The pane's calibration form with one field typed. */
 function form(fields: Partial<CalibrationFields>, pick: (r: ReturnType<typeof readCalibration>) => number | undefined): Verdict {
-  return verdict(() => pick(readCalibration({ ...BLANK_FIELDS, ...fields })));
+  return verdict(() => pick(readCalibration({ ...BLANK_CALIBRATION_FIELDS, ...fields })));
 }
 
 /** Text of a quantity: mostly valid, out-of-range numbers, unit text of the quantity and of others, anything. */
@@ -317,9 +305,7 @@ interface CliAnswer {
 }
 
 async function runCli(args: readonly string[]): Promise<CliAnswer> {
-  let out = '';
-  let err = '';
-  const code = await main(args, { write: (s: string) => (out += s) }, { write: (s: string) => (err += s) });
+  const { code, out, err } = await runMain(args);
   if (code === 0) return { code, json: JSON.parse(out) as Record<string, unknown>, problem: null, option: null };
   const m = /^resin-derate [a-z]+: (--[a-z0-9-]+): (.*)\n$/s.exec(err);
   return { code, json: null, problem: m?.[2] ?? err, option: m?.[1] ?? null };

@@ -27,19 +27,10 @@ import {
   type PronyMaterialSpec,
 } from '../src/index.js';
 import { expectClose } from './expect.js';
+import { fourTermProny } from './support/prony.js';
 
 const K = KELVIN_OFFSET;
-const SPEC: PronyMaterialSpec = {
-  id: 'test-prony',
-  name: 'four terms',
-  referenceC: 160,
-  prony: { EinfMPa: 1.5, terms: [0.01, 1, 100, 1e4].map((tauS, i) => ({ tauS, EMPa: [1200, 600, 300, 20][i] ?? 0 })) },
-  shiftLaw: 'hybrid',
-  TgC: 147,
-  C1: 12.3,
-  C2K: 73,
-  EakJmol: 600,
-};
+const SPEC = fourTermProny('test-prony');
 
 describe('Prony material', () => {
   it('is the series itself at the reference temperature', () => {

@@ -28,6 +28,7 @@ import { MAXTEMP } from '../../functions/limits.js';
 import { BLOCK_ROWS } from '../../functions/core/block.js';
 import { mpaValue, valueIn } from '../../src/base/display.js';
 import { expectClose } from '../expect.js';
+import { BLANK_CALIBRATION_FIELDS } from '../support/calibration-form.js';
 
 let preview: Preview;
 let browser: Browser;
@@ -370,19 +371,7 @@ describe('task pane in Chromium with the in-memory sheet', () => {
     await page.waitForSelector('#cal-result:not([hidden])');
     expect(await page.getAttribute('#cal-hdta', 'aria-invalid')).toBeNull();
     // The same engine call in Node: the pane must show its numbers.
-    const fields: CalibrationFields = {
-      start: 'PBT',
-      creepTime: '1000 h',
-      creepTemperature: '23',
-      modulus23: '',
-      hdtA: '',
-      hdtB: '',
-      tg: '',
-      tm: '',
-      creepModulus: '',
-      id: '',
-      ...INVENTED,
-    } as CalibrationFields;
+    const fields = { ...BLANK_CALIBRATION_FIELDS, ...INVENTED } as CalibrationFields;
     calibration = runCalibration(readCalibration(fields));
     // Fair, not good: the creep input drives creepEa_kJmol far from PBT's value (src/fit/calibrate.ts farFromFamily).
     expect(calibration.quality).toBe('fair');
