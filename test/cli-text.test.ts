@@ -4,6 +4,7 @@
  * to the same command's JSON answer, in-process (main) and once through the built bin/ (spawned).
  */
 import { execFileSync } from 'node:child_process';
+import { mkdirSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { durationText, modulusRangeText, modulusText, stressText, temperatureText } from '../src/base/display.js';
 import type { Answer } from './cli-cases.js';
@@ -86,6 +87,8 @@ describe('CLI text output uses the display rules; JSON stays raw', () => {
   });
 
   it('the demo prints no raw number and the shared verdict words', async () => {
+    // Made here: on a clean clone no other test may have created the folder yet.
+    mkdirSync('test-output', { recursive: true });
     const r = await run('demo', '--workbook', 'test-output/cli-text-demo.xlsx');
     expect(r.code).toBe(0);
     expect(r.out).not.toMatch(RAW_NUMBER);
