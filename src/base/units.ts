@@ -1,12 +1,11 @@
 /**
  * Unit parsing at the boundary. Bare numbers are degC, hours and MPa; text with a unit goes through
- * mathjs units (tree-shaken: only the unit system is created). Engine units: kelvin, seconds, MPa.
+ * mathjs units (only the unit system is created, with number arithmetic: ./unit-system.ts). Engine units:
+ * kelvin, seconds, MPa.
  */
-import { create, createUnitDependencies, unitDependencies, type FactoryFunctionMap, type Unit } from 'mathjs';
+import type { Unit } from 'mathjs';
 import { InputError } from './errors.js';
-
-// mathjs types its dependency maps as possibly undefined; both are always exported.
-const math = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap);
+import { math } from './unit-system.js';
 
 /** 1 psi = 6894.757293168 Pa (NIST SP 811, 2008, appendix B.8); ksi is not built into mathjs. */
 export const PA_PER_PSI = 6894.757293168;
