@@ -121,6 +121,9 @@ const PREFIX_CASE = new Map<string, { exact: readonly string[]; say: string }>(
   }),
 );
 
+/** Every unit spelling read besides mathjs's own names: the case-folded words (lower case) and the case-exact SI symbols. */
+export const UNIT_SPELLINGS: readonly string[] = [...FOLDED.keys(), ...[...PREFIX_CASE.values()].flatMap((p) => p.exact)];
+
 const BASE: Record<UnitQuantity, { unit: string; word: string; name: string; examples: string }> = {
   temperature: { unit: 'K', word: 'a temperature unit', name: 'a temperature', examples: "'80 degC', '176 degF' or '350 K'" },
   time: { unit: 's', word: 'a time unit', name: 'a time', examples: "'1000 h', '10 s', '2 weeks' or '5 years'" },
