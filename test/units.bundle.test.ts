@@ -250,10 +250,13 @@ describe('the start-up bundle unit system agrees with mathjs built with all its 
     expect(() => bundled.math.unit('1 degC').toNumber('s')).toThrow(/Units do not match/);
   });
 
-  it('refuses text in VAR, whose value in mathjs is a complex number, as an unknown unit', () => {
+  it('refuses text in VAR, whose value in mathjs is a complex number, as an unknown unit, and makes no BigNumber or Complex', () => {
     // mathjs with all types reads it (a reactive power); the project never needed it and the bundle has no Complex.
     expect(full.unit('1 VAR').equalBase(full.unit('1 W'))).toBe(true);
     expect(() => bundled.math.unit('1 VAR')).toThrow(/Unexpected type of argument/);
+    const classes = bundled.math as unknown as Record<'BigNumber' | 'Complex', new (x: number) => unknown>;
+    expect(() => new classes.BigNumber(1)).toThrow('BigNumber values are not available: unit text is read with plain numbers');
+    expect(() => new classes.Complex(1)).toThrow('Complex values are not available: unit text is read with plain numbers');
     expect(() => bundled.parseStressMPa('1 VAR', 'modulus')).toThrow(
       "modulus: unknown unit 'VAR' in '1 VAR'; use '2400 MPa', '2.4 GPa' or '300 ksi'",
     );
