@@ -4,6 +4,7 @@
 // sheet. dist/taskpane.html is the add-in page: Office.js in its head, the Content-Security-Policy as a <meta>.
 // dist/preview.html is the same page without Office.js, for the offline preview (scripts/page-policy.mjs).
 import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { gzipSync } from 'node:zlib';
 import { build } from 'esbuild';
 import { loadsOfficeJsFirst, previewPage, withPolicy } from '../page-policy.mjs';
 
@@ -12,7 +13,7 @@ export default async function buildAddin() {
   // Left by builds before Office.js was loaded by the page itself.
   rmSync('dist/boot.js', { force: true });
   mkdirSync('dist', { recursive: true });
-  await build({
+  const pane = await build({
     entryPoints: { taskpane: 'addin/taskpane.ts' },
     outdir: 'dist',
     bundle: true,
@@ -25,7 +26,17 @@ export default async function buildAddin() {
     chunkNames: 'pane-chunks/[name]-[hash]',
     logLevel: 'warning',
     legalComments: 'linked',
+    metafile: true,
   });
+  // Sizes of the page script and of each chunk (the engine and mathjs units land in the shared chunk-*.js).
+  const kB = (n) => (n / 1000).toFixed(1);
+  const sizes = Object.keys(pane.metafile.outputs)
+    .filter((f) => f.endsWith('.js'))
+    .map((f) => {
+      const b = readFileSync(f);
+      return `${f.slice('dist/'.length)} ${kB(b.length)} / ${kB(gzipSync(b, { level: 9 }).length)} kB`;
+    });
+  console.log(`task pane: minified / gzip: ${sizes.join(', ')}`);
   const page = readFileSync('addin/taskpane.html', 'utf8');
   if (!loadsOfficeJsFirst(page)) throw new Error('addin/taskpane.html: the first script in its head must be Office.js, named once');
   writeFileSync('dist/taskpane.html', withPolicy(page, 'addin/taskpane.html'));

@@ -1,12 +1,11 @@
 /**
  * Unit parsing at the boundary. Bare numbers are degC, hours and MPa; text with a unit goes through
- * mathjs units (tree-shaken: only the unit system is created). Engine units: kelvin, seconds, MPa.
+ * mathjs units (only the unit system is created, with number arithmetic: ./unit-system.ts). Engine units:
+ * kelvin, seconds, MPa.
  */
-import { create, createUnitDependencies, unitDependencies, type FactoryFunctionMap, type Unit } from 'mathjs';
+import type { Unit } from 'mathjs';
 import { InputError } from './errors.js';
-
-// mathjs types its dependency maps as possibly undefined; both are always exported.
-const math = create({ unitDependencies, createUnitDependencies } as FactoryFunctionMap);
+import { math } from './unit-system.js';
 
 /** 1 psi = 6894.757293168 Pa (NIST SP 811, 2008, appendix B.8); ksi is not built into mathjs. */
 export const PA_PER_PSI = 6894.757293168;
@@ -121,6 +120,9 @@ const PREFIX_CASE = new Map<string, { exact: readonly string[]; say: string }>(
     ms: { exact: ['ms', 'Ms'], say: "'ms' (millisecond) or 'Ms' (megasecond)" },
   }),
 );
+
+/** Every unit spelling read besides mathjs's own names: the case-folded words (lower case) and the case-exact SI symbols. */
+export const UNIT_SPELLINGS: readonly string[] = [...FOLDED.keys(), ...[...PREFIX_CASE.values()].flatMap((p) => p.exact)];
 
 const BASE: Record<UnitQuantity, { unit: string; word: string; name: string; examples: string }> = {
   temperature: { unit: 'K', word: 'a temperature unit', name: 'a temperature', examples: "'80 degC', '176 degF' or '350 K'" },
