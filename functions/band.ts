@@ -1,4 +1,3 @@
-// @load on-first-call
 /** The low / central / high band of an estimate and its region. */
 import { bandEstimate } from '../src/index.js';
 import { material } from './core/args/material.js';

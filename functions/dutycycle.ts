@@ -1,4 +1,3 @@
-// @load on-first-call
 /** Duty cycles: the equivalent time of a repeated temperature history and the modulus after it. */
 import { checkHistory, equivalentTimeS, modulusAfterHistory, pairSegments, SECONDS_PER_HOUR, type Segment } from '../src/index.js';
 import { cycles } from './core/args/count.js';

@@ -1,4 +1,3 @@
-// @load on-first-call
 /** A simulated ISO 75 heat deflection test through the model. */
 import { simulateHdt } from '../src/index.js';
 import { material } from './core/args/material.js';

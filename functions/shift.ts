@@ -1,4 +1,3 @@
-// @load on-first-call
 /** The time-temperature shift of a material and the apparent Tg at a time scale. */
 import { apparentTg, kelvinToC, materialShiftLog10, TEMP_SEARCH_K } from '../src/index.js';
 import { material } from './core/args/material.js';
