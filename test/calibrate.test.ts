@@ -77,6 +77,35 @@ describe('datasheet calibration round trips', () => {
     expectClose(r.params.creepN, 0.055, { abs: 2e-4, source: ROUND });
     expectClose(r.params.meltSharpness, 5, { rel: 0.01, source: ROUND });
   });
+  it('recovers the rise of the alpha_c exponent of a crystal-mobile grade from a hot 10 s modulus', () => {
+    // PP: HDT/A and HDT/B take the exponent and its activation energy (FREE_PREFERENCE); the 80 degC modulus is
+    // what the exponent's rise with temperature sets.
+    const truth: MaterialParams = { ...getFamily('PP').params, creepRise_perK: 0.012 };
+    const E80 = modulusMPa(compileMaterial(truth), DATASHEET_TIME_S, 80 + K);
+    const r = calibrateDatasheet('PP', {
+      moduli: [{ kind: 'relaxation', timeS: DATASHEET_TIME_S, temperatureK: 80 + K, modulusMPa: E80 }],
+    });
+    expect(r.free.map((f) => f.field)).toEqual(['creepN']);
+    const both = calibrateDatasheet(
+      'PP',
+      { moduli: [{ kind: 'relaxation', timeS: DATASHEET_TIME_S, temperatureK: 80 + K, modulusMPa: E80 }] },
+      { free: ['creepRise_perK'] },
+    );
+    expectClose(both.params.creepRise_perK, 0.012, { abs: 1e-4, source: ROUND });
+  });
+  it('never frees the rise of the exponent of a crystal-fixed grade (its slow creep is no alpha_c process)', () => {
+    // Three hot moduli: the third would take the rise (third in FREE_PREFERENCE's list) if it were offered.
+    const r = calibrateDatasheet('PBT', {
+      moduli: [80, 100, 120].map((C, i) => ({
+        kind: 'relaxation' as const,
+        timeS: DATASHEET_TIME_S,
+        temperatureK: C + K,
+        modulusMPa: [800, 600, 500][i] ?? 0,
+      })),
+    });
+    expect(r.free.map((f) => f.field)).not.toContain('creepRise_perK');
+    expect(r.params.creepRise_perK).toBe(0);
+  });
   it('recovers the slow-creep exponent from a 1000 h creep modulus at 23 degC', () => {
     const truth: MaterialParams = { ...getFamily('PA66-cond').params, creepN: 0.045 };
     const Ec = creepModulusMPa(compileMaterial(truth), 3.6e6, T23_K);

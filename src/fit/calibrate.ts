@@ -139,7 +139,9 @@ export interface CalibrationResult {
  * at high stress moves with the crystal plateau (crystallinity), at low stress with the melting law;
  * where both HDTs lie in the melting range those two move them alike, and the breadth or time scale of
  * the amorphous phase's transition (beta, tauTg) separates them.
- * A long-time modulus below Tg moves with the slow-creep exponent, then with its activation energy.
+ * A long-time modulus below Tg moves with the slow-creep exponent, then with its activation energy; a hot modulus of
+ * a crystal-mobile polymer then with the exponent's rise with temperature (creepRise_perK; never freed for a
+ * crystal-fixed one, whose slow creep is no alpha_c process).
  */
 export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: NumericField[]; modulus: NumericField[] }> = {
   amorphous: {
@@ -150,7 +152,7 @@ export const FREE_PREFERENCE: Record<Kind, { hdtHigh: NumericField[]; hdtLow: Nu
   semicrystalline: {
     hdtHigh: ['crystallinity', 'meltSharpness', 'creepN', 'beta', 'tauTg_s'],
     hdtLow: ['meltSharpness', 'crystallinity', 'creepN', 'creepEa_kJmol', 'beta', 'tauTg_s'],
-    modulus: ['creepN', 'creepEa_kJmol', 'crystallinity', 'beta'],
+    modulus: ['creepN', 'creepEa_kJmol', 'creepRise_perK', 'crystallinity', 'beta'],
   },
   crosslinked: {
     hdtHigh: ['fictiveExcess_K', 'glassySlope_perK', 'tauTg_s', 'beta', 'Tg_C', 'creepN'],
@@ -369,7 +371,8 @@ export function calibrateDatasheet(start: MaterialInput, inputs: DatasheetInputs
       tolerance: `${MODULUS_TOLERANCE * 100} %`,
       evaluate: (m) => (d.kind === 'creep' ? creepModulusMPa(m, d.timeS, d.temperatureK) : modulusMPa(m, d.timeS, d.temperatureK)),
       scale: (r) => Math.log((r ?? 0) / E) / MODULUS_TOLERANCE,
-      candidates: pref.modulus,
+      candidates:
+        p0.kind === 'semicrystalline' && p0.crystalMobility === 0 ? pref.modulus.filter((f) => f !== 'creepRise_perK') : pref.modulus,
     });
   }
   if (fits.length === 0 && direct.size === 0) {
